@@ -1,0 +1,71 @@
+// Builds the Express app from a context; importable by tests, started by index.ts.
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import { toNodeHandler } from 'better-auth/node';
+import express, { type Express } from 'express';
+import { authFormsRouter } from './auth/auth.router.js';
+import type { AppContext } from './context.js';
+import { errorHandler } from './lib/error-handler.js';
+import { HttpError } from './lib/http-error.js';
+import { cooperativeRouter } from './modules/cooperative/cooperative.router.js';
+import { farmsRouter } from './modules/farms/farms.router.js';
+import { mailRouter } from './modules/mail/mail.router.js';
+import { meRouter, membersRouter } from './modules/members/members.router.js';
+
+export async function createApp(ctx: AppContext): Promise<Express> {
+  const app = express();
+  app.disable('x-powered-by');
+  if (ctx.config.logRequests) {
+    app.use((req, res, next) => {
+      const t = performance.now();
+      res.on('finish', () => console.log(`${req.method} ${req.originalUrl} ${res.statusCode} ${(performance.now() - t).toFixed(1)}ms`));
+      next();
+    });
+  }
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+
+  // better-auth reads its own request bodies: mount it before express.json().
+  app.use('/api/auth', authFormsRouter(ctx));
+  app.all('/api/auth/*splat', toNodeHandler(ctx.auth));
+
+  app.use('/api', express.json({ limit: '1mb' }));
+  app.use('/api/cooperative', cooperativeRouter(ctx));
+  app.use('/api/me', meRouter(ctx));
+  app.use('/api/members', membersRouter(ctx));
+  app.use('/api/farms', farmsRouter(ctx));
+  app.use('/api/mail', mailRouter(ctx));
+
+  app.use('/api', (req) => {
+    throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);
+  });
+
+  await mountClient(app, ctx);
+  app.use(errorHandler);
+  return app;
+}
+
+/** Vite's middleware in development; the built files otherwise. */
+async function mountClient(app: Express, ctx: AppContext) {
+  if (ctx.config.env === 'development') {
+    const { createServer } = await import('vite');
+    const vite = await createServer({ root: ctx.config.rootDir, server: { middlewareMode: true }, appType: 'spa' });
+    app.use(vite.middlewares);
+    return;
+  }
+  const dist = ctx.config.distDir;
+  const index = path.join(dist, 'index.html');
+  // Hashed assets never change; index.html always revalidates.
+  app.use('/assets', express.static(path.join(dist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.get('/*splat', (_req, res) => {
+    if (!existsSync(index)) {
+      res.status(503).type('text/plain').send('The client is not built yet: run `npm run build` (npm start does it for you).');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(index);
+  });
+}

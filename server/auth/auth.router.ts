@@ -1,0 +1,81 @@
+// Sign-up and sign-in go through better-auth, but their bodies are first checked with the
+// same zod schemas the forms use, so a bad field is named, and better-auth's refusals are
+// answered in the API's one error shape (with `message` and `code` also at the top level,
+// where better-auth's own client reads them).
+import { APIError } from 'better-auth/api';
+import { fromNodeHeaders } from 'better-auth/node';
+import express, { Router, type Response } from 'express';
+import { signInSchema, signUpSchema } from '../../shared/schemas/members.js';
+import type { AppContext } from '../context.js';
+import { fromZod, HttpError } from '../lib/http-error.js';
+
+const REFUSALS: Record<string, (m: string) => HttpError> = {
+  USER_ALREADY_EXISTS: () =>
+    new HttpError(409, 'email_taken', 'An account with that e-mail already exists. Sign in, or reset its password.', {
+      email: 'already registered',
+    }),
+  USER_ALREADY_EXISTS_USE_ANOTHER_EMAIL: () =>
+    new HttpError(409, 'email_taken', 'An account with that e-mail already exists. Sign in, or reset its password.', {
+      email: 'already registered',
+    }),
+  INVALID_EMAIL_OR_PASSWORD: () =>
+    new HttpError(401, 'wrong_credentials', 'That e-mail and password do not match an account.', {
+      password: 'e-mail or password is wrong',
+    }),
+  ACCOUNT_SUSPENDED: (m) => new HttpError(403, 'account_suspended', m),
+};
+
+function sendError(res: Response, e: HttpError) {
+  const body = { code: e.code, message: e.message, fields: e.fields };
+  res.status(e.status).json({ error: body, ...body });
+}
+
+async function relay(res: Response, response: globalThis.Response) {
+  if (response.ok) {
+    res.status(response.status);
+    response.headers.forEach((value, key) => {
+      if (key !== 'set-cookie' && key !== 'content-length') res.setHeader(key, value);
+    });
+    const cookies = response.headers.getSetCookie();
+    if (cookies.length) res.setHeader('set-cookie', cookies);
+    res.send(Buffer.from(await response.arrayBuffer()));
+    return;
+  }
+  const body = (await response.json().catch(() => ({}))) as { code?: string; message?: string };
+  const known = body.code ? REFUSALS[body.code] : undefined;
+  sendError(res, known ? known(body.message ?? '') : new HttpError(response.status, (body.code ?? 'auth_error').toLowerCase(), body.message ?? 'Sign-in failed.'));
+}
+
+function fromApiError(err: unknown): globalThis.Response | undefined {
+  if (!(err instanceof APIError)) return undefined;
+  const status = typeof err.statusCode === 'number' ? err.statusCode : 400;
+  return new Response(JSON.stringify(err.body ?? { message: err.message }), {
+    status,
+    headers: { 'content-type': 'application/json' },
+  });
+}
+
+export function authFormsRouter(ctx: AppContext): Router {
+  const r = Router();
+  r.use(express.json({ limit: '32kb' }));
+
+  r.post('/sign-up/email', async (req, res) => {
+    const parsed = signUpSchema.safeParse(req.body ?? {});
+    if (!parsed.success) return sendError(res, fromZod(parsed.error, 'form'));
+    const response = await ctx.auth.api
+      .signUpEmail({ body: parsed.data, headers: fromNodeHeaders(req.headers), asResponse: true })
+      .catch((e: unknown) => fromApiError(e) ?? Promise.reject(e));
+    await relay(res, response);
+  });
+
+  r.post('/sign-in/email', async (req, res) => {
+    const parsed = signInSchema.safeParse(req.body ?? {});
+    if (!parsed.success) return sendError(res, fromZod(parsed.error, 'form'));
+    const body = { ...parsed.data, rememberMe: (req.body as { rememberMe?: boolean }).rememberMe !== false };
+    const response = await ctx.auth.api
+      .signInEmail({ body, headers: fromNodeHeaders(req.headers), asResponse: true })
+      .catch((e: unknown) => fromApiError(e) ?? Promise.reject(e));
+    await relay(res, response);
+  });
+  return r;
+}

@@ -1,0 +1,66 @@
+// Everything a request handler may need, built once at start: configuration, database,
+// sign-in, mail. Tests build the same context on a temporary database.
+import path from 'node:path';
+import type { Config } from './config.js';
+import { type Database, type Db, openDatabase } from './db/client.js';
+import { seedIfEmpty, type SeedOutcome } from './db/first-start.js';
+import { type Auth, createAuth } from './auth/auth.js';
+import { type MailCatcher, startMailCatcher } from './modules/mail/mail-catcher.js';
+import { createMailer, type Mailer } from './modules/mail/mailer.js';
+
+export type AppContext = {
+  config: Config;
+  database: Database;
+  db: Db;
+  auth: Auth;
+  mailer: Mailer;
+  catcher?: MailCatcher;
+  seed: SeedOutcome;
+  close(): Promise<void>;
+};
+
+export type ContextOptions = {
+  /** Start PGlite from this dump instead of the data directory (tests). */
+  loadDataDir?: Blob;
+  /** Keep PGlite in memory (tests). */
+  inMemory?: boolean;
+  /** Port for the local SMTP catcher; 0 picks a free one. */
+  catcherPort?: number;
+};
+
+export async function createContext(config: Config, opts: ContextOptions = {}): Promise<AppContext> {
+  const database = await openDatabase({
+    databaseUrl: config.databaseUrl,
+    dataDir: opts.inMemory || opts.loadDataDir ? undefined : path.join(config.dataDir, 'pglite'),
+    loadDataDir: opts.loadDataDir,
+    migrationsFolder: config.migrationsFolder,
+  });
+  const closers: Array<() => Promise<void> | void> = [() => database.close()];
+  try {
+    await database.migrate();
+    const seed = config.seedDemo ? await seedIfEmpty(database.db) : ({ seeded: false, reason: 'SEED_DEMO is off' } as const);
+    let catcher: MailCatcher | undefined;
+    if (!config.smtpUrl) {
+      catcher = await startMailCatcher(database.db, opts.catcherPort ?? 0);
+      closers.unshift(() => catcher!.close());
+    }
+    const mailer = createMailer(database.db, { smtpUrl: config.smtpUrl, catcher, from: config.mailFrom });
+    closers.unshift(() => mailer.close());
+    const auth = createAuth(config, database.db, mailer);
+    return {
+      config,
+      database,
+      db: database.db,
+      auth,
+      mailer,
+      catcher,
+      seed,
+      async close() {
+        for (const c of closers) await c();
+      },
+    };
+  } catch (err) {
+    for (const c of closers) await c();
+    throw err;
+  }
+}

@@ -1,0 +1,23 @@
+// The demo cooperative is written on the first start only, never over existing data.
+import { hashPassword } from 'better-auth/crypto';
+import { count } from 'drizzle-orm';
+import type { Db } from './client.js';
+import { farms, user } from './schema/index.js';
+
+export type SeedOutcome = { seeded: true; ms: number; counts: Record<string, unknown> } | { seeded: false; reason: string };
+
+export async function hasData(db: Db): Promise<boolean> {
+  const [[u], [f]] = await Promise.all([
+    db.select({ n: count() }).from(user),
+    db.select({ n: count() }).from(farms),
+  ]);
+  return u.n > 0 || f.n > 0;
+}
+
+export async function seedIfEmpty(db: Db): Promise<SeedOutcome> {
+  if (await hasData(db)) return { seeded: false, reason: 'the database already has data' };
+  const started = performance.now();
+  const { seedDemo } = await import('./seed/seed-demo.js');
+  const counts = await seedDemo(db, { hashPassword });
+  return { seeded: true, ms: Math.round(performance.now() - started), counts };
+}

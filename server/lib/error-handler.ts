@@ -1,0 +1,49 @@
+// One error middleware: every refusal leaves the API as { error: { code, message, fields } }.
+import type { ErrorRequestHandler } from 'express';
+import { ZodError } from 'zod';
+import { fromZod, HttpError } from './http-error.js';
+
+type PgError = { code?: string; constraint?: string; detail?: string; cause?: unknown };
+
+/** Drizzle wraps driver errors; the PostgreSQL code sits on the error or its cause. */
+function pgError(err: unknown): PgError | undefined {
+  let e: unknown = err;
+  for (let i = 0; i < 3 && e && typeof e === 'object'; i++) {
+    const c = (e as PgError).code;
+    if (typeof c === 'string' && /^[0-9A-Z]{5}$/.test(c)) return e as PgError;
+    e = (e as PgError).cause;
+  }
+  return undefined;
+}
+
+export function toHttpError(err: unknown): HttpError | undefined {
+  if (err instanceof HttpError) return err;
+  if (err instanceof ZodError) return fromZod(err, 'input');
+  const anyErr = err as { type?: string; status?: number };
+  if (anyErr?.type === 'entity.parse.failed') return new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
+  if (anyErr?.type === 'entity.too.large') return new HttpError(413, 'body_too_large', 'The request body is too large.');
+  if (anyErr?.type === 'encoding.unsupported' || anyErr?.type === 'charset.unsupported')
+    return new HttpError(415, 'unsupported_encoding', 'The request body encoding is not supported.');
+  const pg = pgError(err);
+  if (pg?.code === '23505') return new HttpError(409, 'conflict', 'That would duplicate something already stored.', constraintField(pg));
+  if (pg?.code === '23503') return new HttpError(409, 'conflict', 'That refers to something that does not exist or is still in use.', constraintField(pg));
+  if (pg?.code === '23514' || pg?.code === '23502')
+    return new HttpError(400, 'invalid_input', 'A value is outside what is allowed.', constraintField(pg));
+  if (pg?.code === '40001' || pg?.code === '40P01')
+    return new HttpError(409, 'retry', 'Someone else changed the same records at the same time; try again.');
+  return undefined;
+}
+
+function constraintField(pg: PgError): Record<string, string> | undefined {
+  return pg.constraint ? { _: `constraint ${pg.constraint}` } : undefined;
+}
+
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  const http = toHttpError(err);
+  if (!http) {
+    console.error(`[heelwood] ${req.method} ${req.originalUrl} failed:`, err);
+  }
+  const e = http ?? new HttpError(500, 'internal', 'Something went wrong on the server; the error was logged.');
+  if (res.headersSent) return;
+  res.status(e.status).json({ error: { code: e.code, message: e.message, ...(e.fields ? { fields: e.fields } : {}) } });
+};
