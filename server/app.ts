@@ -11,6 +11,10 @@ import { cooperativeRouter } from './modules/cooperative/cooperative.router.js';
 import { farmsRouter } from './modules/farms/farms.router.js';
 import { mailRouter } from './modules/mail/mail.router.js';
 import { meRouter, membersRouter } from './modules/members/members.router.js';
+import { motherPlantsRouter } from './modules/mother-plants/mother-plants.router.js';
+import { healthRouter } from './modules/health/health.router.js';
+import { inspectionsRouter } from './modules/inspections/inspections.router.js';
+import { speciesRouter } from './modules/species/species.router.js';
 
 export async function createApp(ctx: AppContext): Promise<Express> {
   const app = express();
@@ -37,6 +41,10 @@ export async function createApp(ctx: AppContext): Promise<Express> {
   app.use('/api/members', membersRouter(ctx));
   app.use('/api/farms', farmsRouter(ctx));
   app.use('/api/mail', mailRouter(ctx));
+  app.use('/api/species', speciesRouter(ctx));
+  app.use('/api', inspectionsRouter(ctx));
+  app.use('/api/mother-plants', motherPlantsRouter(ctx));
+  app.use('/api', healthRouter(ctx));
 
   app.use('/api', (req) => {
     throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);

@@ -34,8 +34,24 @@ export function toHttpError(err: unknown): HttpError | undefined {
   return undefined;
 }
 
+/** Database constraints named after the form field they protect. */
+const CONSTRAINT_FIELDS: Record<string, [string, string]> = {
+  user_email_unique: ['email', 'already registered'],
+  farms_code_unique: ['code', 'already used by another farm'],
+  species_scientific_name_unique: ['scientificName', 'already in the list'],
+  varieties_species_name_unique: ['name', 'already a variety of this species'],
+  mother_plants_code_unique: ['code', 'already used'],
+  pests_code_unique: ['code', 'already in the catalogue'],
+  seasons_name_unique: ['name', 'already used by another season'],
+  wood_offers_season_plant_unique: ['plantId', 'already offered this season'],
+  wood_requests_season_grower_unique: ['seasonId', 'you already have a request this season'],
+  wood_offers_reserved_check: ['cuttings', 'more than the plant offers'],
+};
+
 function constraintField(pg: PgError): Record<string, string> | undefined {
-  return pg.constraint ? { _: `constraint ${pg.constraint}` } : undefined;
+  if (!pg.constraint) return undefined;
+  const known = CONSTRAINT_FIELDS[pg.constraint];
+  return known ? { [known[0]]: known[1] } : { _: `constraint ${pg.constraint}` };
 }
 
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
