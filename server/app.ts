@@ -15,6 +15,9 @@ import { motherPlantsRouter } from './modules/mother-plants/mother-plants.router
 import { healthRouter } from './modules/health/health.router.js';
 import { inspectionsRouter } from './modules/inspections/inspections.router.js';
 import { speciesRouter } from './modules/species/species.router.js';
+import { photosRouter } from './modules/photos/photos.router.js';
+import { seasonsRouter } from './modules/seasons/seasons.router.js';
+import { woodOffersRouter } from './modules/wood-offers/wood-offers.router.js';
 
 export async function createApp(ctx: AppContext): Promise<Express> {
   const app = express();
@@ -45,6 +48,9 @@ export async function createApp(ctx: AppContext): Promise<Express> {
   app.use('/api', inspectionsRouter(ctx));
   app.use('/api/mother-plants', motherPlantsRouter(ctx));
   app.use('/api', healthRouter(ctx));
+  app.use('/api', photosRouter(ctx));
+  app.use('/api/seasons', seasonsRouter(ctx));
+  app.use('/api', woodOffersRouter(ctx));
 
   app.use('/api', (req) => {
     throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);
