@@ -18,6 +18,9 @@ import { speciesRouter } from './modules/species/species.router.js';
 import { photosRouter } from './modules/photos/photos.router.js';
 import { seasonsRouter } from './modules/seasons/seasons.router.js';
 import { woodOffersRouter } from './modules/wood-offers/wood-offers.router.js';
+import { woodRequestsRouter } from './modules/wood-requests/wood-requests.router.js';
+import { plannerRouter } from './modules/planner/planner.router.js';
+import { plantsCsvRouter } from './modules/mother-plants/plants-csv.router.js';
 
 export async function createApp(ctx: AppContext): Promise<Express> {
   const app = express();
@@ -46,11 +49,14 @@ export async function createApp(ctx: AppContext): Promise<Express> {
   app.use('/api/mail', mailRouter(ctx));
   app.use('/api/species', speciesRouter(ctx));
   app.use('/api', inspectionsRouter(ctx));
+  app.use('/api/mother-plants', plantsCsvRouter(ctx));
   app.use('/api/mother-plants', motherPlantsRouter(ctx));
   app.use('/api', healthRouter(ctx));
   app.use('/api', photosRouter(ctx));
   app.use('/api/seasons', seasonsRouter(ctx));
   app.use('/api', woodOffersRouter(ctx));
+  app.use('/api', woodRequestsRouter(ctx));
+  app.use('/api/planner', plannerRouter(ctx));
 
   app.use('/api', (req) => {
     throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);
@@ -74,7 +80,7 @@ async function mountClient(app: Express, ctx: AppContext) {
   // Hashed assets never change; index.html always revalidates.
   app.use('/assets', express.static(path.join(dist, 'assets'), { immutable: true, maxAge: '1y', fallthrough: false }));
   app.use(express.static(dist, { index: false, maxAge: '1h' }));
-  app.get('/*splat', (_req, res) => {
+  app.get('/{*splat}', (_req, res) => {
     if (!existsSync(index)) {
       res.status(503).type('text/plain').send('The client is not built yet: run `npm run build` (npm start does it for you).');
       return;

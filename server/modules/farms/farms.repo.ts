@@ -1,23 +1,22 @@
-import { and, asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { FarmSummary } from '../../../shared/schemas/farms.js';
 import type { FarmRole } from '../../../shared/domain.js';
 import type { DbOrTx } from '../../db/client.js';
 import { farmMemberships, farms, motherPlants } from '../../db/schema/index.js';
 
 export async function listFarms(db: DbOrTx): Promise<FarmSummary[]> {
-  return db
-    .select({
-      id: farms.id,
-      code: farms.code,
-      name: farms.name,
-      address: farms.address,
-      lat: farms.lat,
-      lon: farms.lon,
-      memberCount: sql<number>`(select count(*)::int from ${farmMemberships} where ${farmMemberships.farmId} = ${farms.id})`,
-      plantCount: sql<number>`(select count(*)::int from ${motherPlants} where ${motherPlants.farmId} = ${farms.id} and ${motherPlants.healthStatus} <> 'retired')`,
-    })
-    .from(farms)
-    .orderBy(asc(farms.name));
+  const [rows, members, plants] = await Promise.all([
+    db.select({ id: farms.id, code: farms.code, name: farms.name, address: farms.address, lat: farms.lat, lon: farms.lon }).from(farms).orderBy(asc(farms.name)),
+    db.select({ farmId: farmMemberships.farmId, n: sql<number>`count(*)::int` }).from(farmMemberships).groupBy(farmMemberships.farmId),
+    db
+      .select({ farmId: motherPlants.farmId, n: sql<number>`count(*)::int` })
+      .from(motherPlants)
+      .where(ne(motherPlants.healthStatus, 'retired'))
+      .groupBy(motherPlants.farmId),
+  ]);
+  const m = new Map(members.map((x) => [x.farmId, x.n]));
+  const p = new Map(plants.map((x) => [x.farmId, x.n]));
+  return rows.map((f) => ({ ...f, memberCount: m.get(f.id) ?? 0, plantCount: p.get(f.id) ?? 0 }));
 }
 
 export async function findFarm(db: DbOrTx, id: string) {

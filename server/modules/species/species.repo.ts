@@ -1,4 +1,4 @@
-import { asc, eq, sql } from 'drizzle-orm';
+import { and, asc, eq, ne, sql } from 'drizzle-orm';
 import type { Species, Variety } from '../../../shared/schemas/register.js';
 import type { DbOrTx } from '../../db/client.js';
 import { motherPlants, species, varieties } from '../../db/schema/index.js';
@@ -12,9 +12,11 @@ export async function listSpecies(db: DbOrTx): Promise<Species[]> {
         speciesId: varieties.speciesId,
         name: varieties.name,
         description: varieties.description,
-        plantCount: sql<number>`(select count(*)::int from ${motherPlants} where ${motherPlants.varietyId} = ${varieties.id} and ${motherPlants.healthStatus} <> 'retired')`,
+        plantCount: sql<number>`count(${motherPlants.id})::int`,
       })
       .from(varieties)
+      .leftJoin(motherPlants, and(eq(motherPlants.varietyId, varieties.id), ne(motherPlants.healthStatus, 'retired')))
+      .groupBy(varieties.id)
       .orderBy(asc(varieties.name)),
   ]);
   const bySpecies = new Map<string, Variety[]>();

@@ -1,0 +1,3 @@
+export const cooperativeKeys = {
+  all: ['cooperative'] as const,
+};

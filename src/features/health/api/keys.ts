@@ -1,0 +1,4 @@
+export const healthKeys = {
+  all: ['health'] as const,
+  overview: () => [...healthKeys.all, 'overview'] as const,
+};

@@ -1,0 +1,4 @@
+export const speciesKeys = {
+  all: ['species'] as const,
+  lists: () => [...speciesKeys.all, 'list'] as const,
+};
