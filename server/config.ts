@@ -28,6 +28,7 @@ const envSchema = z.object({
   BETTER_AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
   SEED_DEMO: bool.optional(),
   LOG_REQUESTS: bool.default(false),
+  TILES_SOURCE: z.string().min(1).optional(),
 });
 
 export type Config = {
@@ -48,6 +49,9 @@ export type Config = {
   rootDir: string;
   migrationsFolder: string;
   distDir: string;
+  /** A folder of XYZ tiles, an .mbtiles or a .pmtiles file; unset = the shipped tiles/. */
+  tilesSource?: string;
+  tilesDir: string;
 };
 
 export class ConfigError extends Error {
@@ -122,5 +126,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     rootDir: ROOT,
     migrationsFolder: path.join(ROOT, 'drizzle'),
     distDir: path.join(ROOT, 'dist'),
+    tilesSource: e.TILES_SOURCE ? path.resolve(ROOT, e.TILES_SOURCE) : undefined,
+    tilesDir: path.join(ROOT, 'tiles'),
   };
 }

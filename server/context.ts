@@ -7,6 +7,7 @@ import { seedIfEmpty, type SeedOutcome } from './db/first-start.js';
 import { type Auth, createAuth } from './auth/auth.js';
 import { type MailCatcher, startMailCatcher } from './modules/mail/mail-catcher.js';
 import { createMailer, type Mailer } from './modules/mail/mailer.js';
+import { createTileSource, type TileSource } from './modules/map/tiles.sources.js';
 
 export type AppContext = {
   config: Config;
@@ -15,6 +16,7 @@ export type AppContext = {
   auth: Auth;
   mailer: Mailer;
   catcher?: MailCatcher;
+  tiles: TileSource;
   seed: SeedOutcome;
   close(): Promise<void>;
 };
@@ -46,6 +48,8 @@ export async function createContext(config: Config, opts: ContextOptions = {}): 
     }
     const mailer = createMailer(database.db, { smtpUrl: config.smtpUrl, catcher, from: config.mailFrom });
     closers.unshift(() => mailer.close());
+    const tiles = await createTileSource(config.tilesSource, config.tilesDir);
+    closers.unshift(() => tiles.close());
     const auth = createAuth(config, database.db, mailer);
     return {
       config,
@@ -54,6 +58,7 @@ export async function createContext(config: Config, opts: ContextOptions = {}): 
       auth,
       mailer,
       catcher,
+      tiles,
       seed,
       async close() {
         for (const c of closers) await c();

@@ -4,6 +4,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from './app.js';
 import { ConfigError, loadConfig } from './config.js';
 import { createContext } from './context.js';
+import { TileSourceError } from './modules/map/tiles.sources.js';
 
 const DEMO_SIGN_INS = [
   ['coordinator@heelwood.test', 'coordinator'],
@@ -63,6 +64,10 @@ async function main() {
 }
 
 main().catch((err) => {
+  if (err instanceof TileSourceError) {
+    console.error(`Heelwood cannot start: ${err.message}`);
+    process.exit(1);
+  }
   console.error('Heelwood failed to start:', err);
   process.exit(1);
 });
