@@ -20,6 +20,9 @@ import { seasonsRouter } from './modules/seasons/seasons.router.js';
 import { woodOffersRouter } from './modules/wood-offers/wood-offers.router.js';
 import { woodRequestsRouter } from './modules/wood-requests/wood-requests.router.js';
 import { plannerRouter } from './modules/planner/planner.router.js';
+import { allocationRoundsRouter } from './modules/allocation-rounds/allocation-rounds.router.js';
+import { bundlesRouter } from './modules/bundles/bundles.router.js';
+import { tilesRouter } from './modules/map/tiles.router.js';
 import { plantsCsvRouter } from './modules/mother-plants/plants-csv.router.js';
 
 export async function createApp(ctx: AppContext): Promise<Express> {
@@ -57,10 +60,14 @@ export async function createApp(ctx: AppContext): Promise<Express> {
   app.use('/api', woodOffersRouter(ctx));
   app.use('/api', woodRequestsRouter(ctx));
   app.use('/api/planner', plannerRouter(ctx));
+  app.use('/api', allocationRoundsRouter(ctx));
+  app.use('/api', bundlesRouter(ctx));
 
   app.use('/api', (req) => {
     throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);
   });
+
+  app.use('/tiles', tilesRouter(ctx.tiles));
 
   await mountClient(app, ctx);
   app.use(errorHandler);

@@ -1,0 +1,450 @@
+// The allocation model: which offered wood goes to which request line, as an integer program
+// solved by HiGHS. Pure: no database. Eligibility is the caller's job: it passes only offers
+// that may give wood (clean plants, not withdrawn, something left); an offer that is not in
+// the input is never assigned.
+//
+// Variables: cuttings x(o, l) >= 0, whole, only on compatible arcs: the line's variety; any
+// variety of the species when the line asks for no variety or allows substitutes; and the
+// offer's farm within the line's distance (geodesic, WGS84). Capacities: an offer's available
+// cuttings; a farm's per-grower limit; a line's request. Locked bundles are fixed: they use
+// capacity and count for their line, and no more is added on a locked (offer, line) pair.
+//
+// Goals, each stage keeping the optimum of the stages before it:
+//  1. Fairness. Let L* be the lines with at least one arc that can carry wood (a line nobody can
+//     serve is left out, or it would hold everyone at zero), and pmax the highest priority in
+//     L*. Maximise t in [0, 1] subject to
+//        allocated(l) >= t * (priority(l) / pmax) * cuttings(l)   for every l in L*,
+//     where allocated(l) counts locked bundles. So the top-priority lines get the share t of
+//     their request and a line of half that priority at least t/2 of its own.
+//  2. Volume. With t* the stage-1 optimum, maximise the total cuttings subject to
+//        allocated(l) >= ceil(t* * priority(l) / pmax * cuttings(l) - 1e-9)   for l in L*.
+//     As allocations are whole numbers this is exactly "allocated(l) >= t* ...": no tolerance
+//     that could let a line slip below the fair share, and the stage-1 solution stays feasible.
+//  3. Travel. With t* and the total V* kept, minimise
+//        sum over (grower g, farm f) visited of  c(g, f)
+//      + tau * sum over cuttings of (km from the line's destination to the farm
+//                                    + SUBSTITUTE_KM if it is another variety than asked)
+//     where c(g, f) = farmVisitKm if given, else the round trip in km from the grower's place to
+//     the farm, and a visit is y(g, f) in {0, 1} with x(o, l) summed over the farm's offers for
+//     a line <= min(request, wood, limit) * y(g, f). tau is set so that the whole tie-break is
+//     worth less than half the cheapest visit: it only orders solutions with the same visits.
+//     travelKm reports the round trips of the farms visited, whatever farmVisitKm says.
+//
+// Reproducible: offers and lines are sorted by id before anything is built, HiGHS runs with a
+// fixed seed on one thread, and lots are split over offers in id order. A time limit that cuts
+// a stage short can make the result depend on the machine's speed; the stats say so.
+import { distanceM } from '../../../shared/geo.js';
+import { type Prepared, prepare, splitLots } from './allocation-arcs.js';
+import { highs, runStage } from './allocation-highs.js';
+import { buildMaster, type Ctx, context, type Master, price, type StageSpec, wholeCuttings } from './allocation-stages.js';
+
+export type AllocOffer = { id: string; plantId: string; farmId: string; speciesId: string; varietyId: string | null; available: number; lat: number; lon: number };
+export type AllocLine = {
+  id: string;
+  growerId: string;
+  speciesId: string;
+  /** null = any variety of the species. */
+  varietyId: string | null;
+  cuttings: number;
+  substitutesAllowed: boolean;
+  /** > 0; 1 is normal. */
+  priority: number;
+  maxDistanceKm: number;
+  /** The grower's destination. */
+  lat: number;
+  lon: number;
+};
+export type AllocInput = {
+  offers: AllocOffer[];
+  lines: AllocLine[];
+  /** farmId -> the most cuttings one grower may take from that farm. */
+  farmLimits?: Record<string, number>;
+  locked?: { offerId: string; lineId: string; cuttings: number }[];
+  /** Fixed cost of each farm a grower visits, in km; default: the round trip to the farm. */
+  farmVisitKm?: number;
+};
+export type LineOutcome = 'filled' | 'partly' | 'no_compatible_offer' | 'beyond_distance' | 'variety_not_offered' | 'shared_out';
+export type AllocResult = {
+  assignments: { offerId: string; lineId: string; cuttings: number; distanceM: number }[];
+  lines: { lineId: string; allocated: number; fill: number; reason: LineOutcome }[];
+  stats: {
+    /** Compatible (offer, line) pairs within distance that can carry wood. */
+    arcs: number;
+    /** Columns HiGHS saw for them, after pooling interchangeable offers (see allocation-arcs.ts). */
+    modelArcs: number;
+    /** Lowest fill (allocated / asked) among the lines with at least one arc; 1 if there are none. */
+    minFill: number;
+    totalCuttings: number;
+    travelKm: number;
+    stages: { name: string; objective: number; status: string; seconds: number }[];
+    /** Fairness and volume stages proven optimal. */
+    optimal: boolean;
+    /** Relative gap HiGHS proved on the travel stage. */
+    gap: number;
+    seconds: number;
+  };
+};
+
+export { SUBSTITUTE_KM } from './allocation-stages.js';
+
+/** Problems with at most this many arcs are solved over all arcs from the start (exact MIPs). */
+export const ALL_ARCS_UP_TO = 3000;
+
+function lineTotals(c: Ctx, arcs: ArrayLike<number>): Float64Array {
+  const alloc = Float64Array.from(c.p.lineLocked);
+  for (let k = 0; k < c.n; k++) alloc[c.p.arcLine[k]] += arcs[k];
+  return alloc;
+}
+
+/** The fair share a solution reaches: min over L* of allocated / weight, at most 1. */
+function shareOf(c: Ctx, alloc: Float64Array): number {
+  let t = 1;
+  for (const l of c.fairLines) t = Math.min(t, alloc[l] / c.fairWeight[l]);
+  return t;
+}
+
+/** Largest share value a line of L* can reach (k / weight, k whole) not above t. */
+function candidateAtMost(c: Ctx, t: number): number {
+  if (t >= 1 - 1e-12) return 1;
+  let best = 0;
+  for (const l of c.fairLines) best = Math.max(best, Math.floor(t * c.fairWeight[l] + 1e-9) / c.fairWeight[l]);
+  return best;
+}
+
+/** Largest share value a line of L* can reach strictly below t. */
+function candidateBelow(c: Ctx, t: number): number {
+  let best = 0;
+  for (const l of c.fairLines) best = Math.max(best, (Math.ceil(t * c.fairWeight[l] - 1e-9) - 1) / c.fairWeight[l]);
+  return Math.max(0, best);
+}
+
+/** Whole cuttings each line of L* must get on top of its locks for a fair share t. */
+function fairFloors(c: Ctx, t: number): Float64Array {
+  const floors = new Float64Array(c.p.lines.length);
+  for (const l of c.fairLines) {
+    const want = t * c.fairWeight[l];
+    const floor = Math.min(wholeCuttings(c.p, l), Math.ceil(want - 1e-9 * Math.max(1, want)));
+    floors[l] = Math.max(0, floor - c.p.lineLocked[l]);
+  }
+  return floors;
+}
+
+function isWhole(x: ArrayLike<number>, upto: number) {
+  for (let j = 0; j < upto; j++) if (Math.abs(x[j] - Math.round(x[j])) > 1e-6) return false;
+  return true;
+}
+
+/** Full-length arc vector (whole cuttings) from a master's solution. */
+function arcValues(c: Ctx, m: Master, x: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(c.n);
+  m.arcs.forEach((k, j) => (out[k] = Math.max(0, Math.round(x[j]))));
+  return out;
+}
+
+function checkFeasible(c: Ctx, arcs: Float64Array, floors: Float64Array | null): boolean {
+  const { p, n } = c;
+  const lot = new Float64Array(p.lots.length);
+  const gf = new Float64Array(p.gfGrower.length);
+  const line = new Float64Array(p.lines.length);
+  for (let k = 0; k < n; k++) {
+    if (arcs[k] > p.arcUb[k]) return false;
+    lot[p.arcLot[k]] += arcs[k];
+    gf[p.arcGf[k]] += arcs[k];
+    line[p.arcLine[k]] += arcs[k];
+  }
+  for (let i = 0; i < lot.length; i++) if (lot[i] > p.lots[i].cap) return false;
+  for (let i = 0; i < gf.length; i++) if (gf[i] > p.gfLimit[i]) return false;
+  for (let i = 0; i < line.length; i++) if (line[i] > p.lineNeed[i] || (floors && line[i] < floors[i])) return false;
+  return true;
+}
+
+function travelObjective(c: Ctx, arcs: Float64Array): number {
+  const { p } = c;
+  let v = 0;
+  const visited = new Uint8Array(p.gfGrower.length);
+  for (let gf = 0; gf < visited.length; gf++) if (p.gfLocked[gf] > 0) visited[gf] = 1;
+  for (let k = 0; k < c.n; k++) {
+    if (arcs[k] <= 0) continue;
+    v += c.travelCost[k] * arcs[k];
+    visited[p.arcGf[k]] = 1;
+  }
+  for (let gf = 0; gf < visited.length; gf++) if (visited[gf]) v += c.visitCost[gf];
+  return v;
+}
+
+function outcome(p: Prepared, l: number, allocated: number): LineOutcome {
+  const asked = wholeCuttings(p, l);
+  if (allocated >= asked) return 'filled';
+  if (allocated > 0) return 'partly';
+  const reach = p.lineReach[l];
+  return reach === 'in_reach' ? 'shared_out' : reach;
+}
+
+/** Assignments (locked bundles merged in), per-line outcomes and the common stats. */
+function finish(
+  c: Ctx,
+  input: AllocInput,
+  amounts: Map<number, number>,
+  stats: Pick<AllocResult['stats'], 'stages' | 'optimal' | 'gap'>,
+  started: number,
+): AllocResult {
+  const { p } = c;
+  const L = p.lines.length;
+  for (const k of p.locks) {
+    const key = k.offer * L + k.line;
+    amounts.set(key, (amounts.get(key) ?? 0) + k.cuttings);
+  }
+  const allocated = new Float64Array(L);
+  const visited = new Set<string>();
+  let travelKm = 0;
+  const assignments: AllocResult['assignments'] = [];
+  for (const [key, cuttings] of [...amounts.entries()].sort((a, b) => a[0] - b[0])) {
+    if (cuttings <= 0) continue;
+    const o = Math.floor(key / L);
+    const l = key % L;
+    allocated[l] += cuttings;
+    const g = p.lineGrower[l];
+    const f = p.offerFarm[o];
+    const visit = `${g}:${f}`;
+    if (!visited.has(visit)) {
+      visited.add(visit);
+      travelKm += (2 * distanceM(p.growerAt[g], p.farmAt[f])) / 1000;
+    }
+    assignments.push({ offerId: p.offers[o].id, lineId: p.lines[l].id, cuttings, distanceM: distanceM(p.lines[l], p.offers[o]) });
+  }
+  let minFill = 1;
+  for (const l of c.fairLines) minFill = Math.min(minFill, allocated[l] / wholeCuttings(p, l));
+  const byId = new Map(p.lines.map((line, i) => [line.id, i]));
+  const lines = input.lines.map((line) => {
+    const l = byId.get(line.id)!;
+    const asked = wholeCuttings(p, l);
+    return { lineId: line.id, allocated: allocated[l], fill: asked > 0 ? allocated[l] / asked : 1, reason: outcome(p, l, allocated[l]) };
+  });
+  let arcs = 0;
+  for (let k = 0; k < c.n; k++) arcs += p.lots[p.arcLot[k]].offers.length;
+  return {
+    assignments,
+    lines,
+    stats: {
+      arcs,
+      modelArcs: c.n,
+      minFill,
+      totalCuttings: allocated.reduce((s, v) => s + v, 0),
+      travelKm,
+      ...stats,
+      seconds: (performance.now() - started) / 1000,
+    },
+  };
+}
+
+/** The first arcs a line works with: its nearest, until they could carry three times its request. */
+function startingArcs(c: Ctx): number[] {
+  const { p } = c;
+  if (c.n <= ALL_ARCS_UP_TO) return Array.from({ length: c.n }, (_, k) => k);
+  const out: number[] = [];
+  for (let l = 0; l < p.lines.length; l++) {
+    const ks: number[] = [];
+    for (let k = c.lineStart[l]; k < c.lineStart[l + 1]; k++) ks.push(k);
+    ks.sort((a, b) => p.arcDistM[a] - p.arcDistM[b] || a - b);
+    let carried = 0;
+    for (const k of ks) {
+      if (carried >= 3 * p.lineNeed[l] && out.length > 0) break;
+      out.push(k);
+      carried += p.arcUb[k];
+    }
+  }
+  return out.sort((a, b) => a - b);
+}
+
+/**
+ * Solves the three stages in turn with HiGHS. `timeLimitSeconds` (default 60) bounds the whole
+ * solve; `travelGap` (default 0.005) is the relative gap at which the travel stage may stop.
+ * Fairness and volume are solved to proven optimality unless the time limit cuts them short
+ * (then `stats.optimal` is false and the best solution found is kept).
+ */
+export async function solveAllocation(input: AllocInput, opts: { timeLimitSeconds?: number; travelGap?: number } = {}): Promise<AllocResult> {
+  const started = performance.now();
+  const limit = opts.timeLimitSeconds ?? 60;
+  const travelGap = opts.travelGap ?? 0.005;
+  const left = () => limit - (performance.now() - started) / 1000;
+  const h = await highs();
+  const p = prepare(input);
+  const c = context(p, input.farmVisitKm);
+  const { n } = c;
+  const stages: AllocResult['stats']['stages'] = [];
+  if (n === 0) {
+    stages.push({ name: 'fairness', objective: 1, status: 'empty', seconds: 0 });
+    return finish(c, input, new Map(), { stages, optimal: true, gap: 0 }, started);
+  }
+
+  // The working subset of arcs, only ever grown.
+  const subset = startingArcs(c);
+  const inSubset = new Uint8Array(n);
+  for (const k of subset) inSubset[k] = 1;
+  const everyArc = () => subset.length === n;
+  const grow = (ks: number[]) => {
+    for (const k of ks) {
+      inSubset[k] = 1;
+      subset.push(k);
+    }
+    subset.sort((a, b) => a - b);
+  };
+  /** LP over the subset, grown until no arc prices out (or time runs out). */
+  const solveLp = (spec: StageSpec) => {
+    let seconds = 0;
+    let rounds = 0;
+    for (;;) {
+      const m = buildMaster(c, [...subset], spec);
+      const run = runStage(h, m.model, { timeLimit: left() });
+      seconds += run.seconds;
+      rounds++;
+      if (run.status !== 'optimal') return { m, run, seconds, converged: false, rounds };
+      const more = everyArc() ? [] : price(c, m, spec, run.rowDual, run.colDual, inSubset);
+      if (more.length === 0) return { m, run, seconds, converged: true, rounds };
+      if (left() <= 0) return { m, run, seconds, converged: false, rounds };
+      grow(more);
+    }
+  };
+
+  // 1. Fairness: the LP bound t_LP over all arcs, then the largest share value a line can
+  // reach at or below it whose whole-cutting floors can be met. Each check is the volume LP
+  // with slacks on the floors (no slack left = the floors can be met); on these transport-like
+  // models its optimal vertex is normally whole, and when it is not a MIP settles it.
+  const fairLp = solveLp({ kind: 'fairness', integer: false });
+  const tLp = fairLp.run.status === 'optimal' ? Math.min(1, -fairLp.run.objective) : 0;
+  let fairProven = fairLp.converged;
+  let volProven = false;
+  let t = candidateAtMost(c, tLp + 1e-9);
+  let floors = fairFloors(c, t);
+  let arcs: Float64Array | null = null;
+  let volSeconds = 0;
+  let volStatus = 'not_run';
+  const slackOf = (m: Master, x: Float64Array) => {
+    let s = 0;
+    for (const col of m.colSlack) if (col >= 0) s += x[col];
+    return s;
+  };
+  for (let step = 0; step < 50 && left() > 0; step++) {
+    floors = fairFloors(c, t);
+    const spec: StageSpec = { kind: 'volume', integer: false, floors };
+    const lp = solveLp(spec);
+    volSeconds += lp.seconds;
+    volStatus = lp.run.status;
+    if (lp.run.status !== 'optimal') break;
+    if (slackOf(lp.m, lp.run.x) > 1e-6) {
+      // The floors cannot be met even fractionally over the arcs priced so far: lower t.
+      if (!lp.converged) fairProven = false;
+      t = candidateBelow(c, t);
+      continue;
+    }
+    if (isWhole(lp.run.x, lp.m.arcs.length)) {
+      arcs = arcValues(c, lp.m, lp.run.x);
+      volProven = lp.converged;
+      break;
+    }
+    // A fractional vertex (per-grower farm limits make the model less than a network): MIP.
+    const mm = buildMaster(c, [...subset], { ...spec, integer: true });
+    const mip = runStage(h, mm.model, { timeLimit: left(), relGap: 0, absGap: 0.999 });
+    volSeconds += mip.seconds;
+    volStatus = mip.status;
+    if (mip.feasible && slackOf(mm, mip.x) < 0.5) {
+      arcs = arcValues(c, mm, mip.x);
+      // Proven when the MIP is optimal and meets the LP bound over all arcs (rounded down).
+      const vol = arcs.reduce((s, v) => s + v, 0);
+      volProven = lp.converged && mip.status === 'optimal' && vol >= Math.floor(-lp.run.objective - c.lockedTotal + 1e-6) - 1e-9;
+      if (!everyArc() && !volProven) volProven = false;
+      break;
+    }
+    if (!everyArc() || mip.status !== 'optimal') fairProven = false;
+    t = candidateBelow(c, t);
+  }
+  if (!arcs || !checkFeasible(c, arcs, floors)) {
+    // Out of time or steps: keep a floor-free solution (t = 0 is always possible).
+    arcs = arcs && checkFeasible(c, arcs, null) ? arcs : new Float64Array(n);
+    floors = new Float64Array(p.lines.length);
+    fairProven = false;
+    volProven = false;
+  }
+  const alloc = lineTotals(c, arcs);
+  stages.push({ name: 'fairness', objective: shareOf(c, alloc), status: fairLp.run.status, seconds: round3(fairLp.seconds) });
+  const volume = alloc.reduce((s, v) => s + v, 0);
+  stages.push({ name: 'volume', objective: volume, status: volStatus, seconds: round3(volSeconds) });
+
+  // 3. Travel: LP bound over all arcs, then the MIP over the subset, started from the volume
+  // solution and stopped once within the gap of that bound.
+  const travelSpec: StageSpec = { kind: 'travel', integer: false, floors, volume };
+  const travLp = solveLp(travelSpec);
+  const bound = travLp.converged ? travLp.run.objective : Number.NEGATIVE_INFINITY;
+  const mipMaster = buildMaster(c, [...subset], { ...travelSpec, integer: true });
+  const start = new Float64Array(mipMaster.model.colCost.length);
+  mipMaster.arcs.forEach((k, j) => (start[j] = arcs![k]));
+  for (let j = 0; j < mipMaster.arcs.length; j++) {
+    const gf = p.arcGf[mipMaster.arcs[j]];
+    if (start[j] > 0 && mipMaster.colVisit[gf] >= 0) start[mipMaster.colVisit[gf]] = 1;
+  }
+  const startObjective = travelObjective(c, arcs);
+  let travStatus = 'start';
+  let travSeconds = travLp.seconds;
+  let best = startObjective;
+  let mipBound = Number.NEGATIVE_INFINITY;
+  if (!(bound > Number.NEGATIVE_INFINITY && startObjective <= bound + travelGap * Math.abs(startObjective) + 1e-9)) {
+    const target = bound > Number.NEGATIVE_INFINITY ? bound + travelGap * Math.abs(bound) : undefined;
+    const mip = runStage(h, mipMaster.model, { timeLimit: left(), relGap: travelGap, absGap: 1e-6, target }, start);
+    travSeconds += mip.seconds;
+    travStatus = mip.status;
+    if (mip.feasible) {
+      const next = arcValues(c, mipMaster, mip.x);
+      const obj = travelObjective(c, next);
+      if (checkFeasible(c, next, floors) && next.reduce((s, v) => s + v, 0) + c.lockedTotal === volume && obj <= best) {
+        arcs = next;
+        best = obj;
+      }
+    }
+    // Over every arc HiGHS's own bound holds for the whole problem too.
+    if (everyArc() && Number.isFinite(mip.dualBound)) mipBound = mip.dualBound;
+  } else travStatus = 'optimal_within_gap';
+  const lower = Math.max(bound, mipBound);
+  const gap = Number.isFinite(lower) && best > 0 ? Math.max(0, (best - lower) / Math.abs(best)) : best === 0 ? 0 : 1;
+  stages.push({ name: 'travel', objective: best, status: travStatus, seconds: round3(travSeconds) });
+
+  return finish(c, input, splitLots(p, arcs), { stages, optimal: fairProven && volProven, gap }, started);
+}
+
+const round3 = (x: number) => Math.round(x * 1000) / 1000;
+
+/**
+ * First come, first served, for comparison: lines in the order given, each taking from its
+ * nearest compatible offers first (ties by offer id) as much as the offer, the farm's
+ * per-grower limit and the request allow. Locked bundles are honoured first.
+ */
+export function greedyAllocation(input: AllocInput): AllocResult {
+  const started = performance.now();
+  const p = prepare(input);
+  const c = context(p, input.farmVisitKm);
+  const L = p.lines.length;
+  const offerLeft = new Float64Array(p.offers.length);
+  const lockedOn = new Float64Array(p.offers.length);
+  for (const k of p.locks) lockedOn[k.offer] += k.cuttings;
+  p.offers.forEach((o, i) => (offerLeft[i] = Math.max(0, Math.floor(o.available) - lockedOn[i])));
+  const gfLeft = Float64Array.from(p.gfLimit);
+  const amounts = new Map<number, number>();
+  const lineIndex = new Map(p.lines.map((l, i) => [l.id, i]));
+  for (const line of input.lines) {
+    const l = lineIndex.get(line.id)!;
+    let need = p.lineNeed[l];
+    const ks = Array.from({ length: c.lineStart[l + 1] - c.lineStart[l] }, (_, i) => c.lineStart[l] + i);
+    const options: { k: number; o: number }[] = [];
+    for (const k of ks) for (const o of p.lots[p.arcLot[k]].offers) options.push({ k, o });
+    options.sort((x, y) => p.arcDistM[x.k] - p.arcDistM[y.k] || x.o - y.o);
+    for (const { k, o } of options) {
+      if (need <= 0) break;
+      const take = Math.min(need, offerLeft[o], gfLeft[p.arcGf[k]]);
+      if (take <= 0) continue;
+      need -= take;
+      offerLeft[o] -= take;
+      gfLeft[p.arcGf[k]] -= take;
+      amounts.set(o * L + l, (amounts.get(o * L + l) ?? 0) + take);
+    }
+  }
+  return finish(c, input, amounts, { stages: [], optimal: false, gap: Number.NaN }, started);
+}
