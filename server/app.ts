@@ -6,6 +6,7 @@ import express, { type Express } from 'express';
 import { authFormsRouter } from './auth/auth.router.js';
 import type { AppContext } from './context.js';
 import { errorHandler } from './lib/error-handler.js';
+import { sameOriginWrites, securityHeaders } from './lib/security.js';
 import { HttpError } from './lib/http-error.js';
 import { cooperativeRouter } from './modules/cooperative/cooperative.router.js';
 import { farmsRouter } from './modules/farms/farms.router.js';
@@ -35,6 +36,9 @@ export async function createApp(ctx: AppContext): Promise<Express> {
       next();
     });
   }
+
+  app.use(securityHeaders(ctx.config));
+  app.use('/api', sameOriginWrites(ctx.config));
 
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });

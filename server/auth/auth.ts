@@ -18,7 +18,8 @@ export function createAuth(config: Config, db: Db, mailer: Mailer) {
     baseURL: config.publicUrl,
     basePath: '/api/auth',
     secret: config.authSecret,
-    trustedOrigins: [config.publicUrl],
+    // On this machine only, the same server is often opened as 127.0.0.1 too.
+    trustedOrigins: config.loopbackOnly ? [config.publicUrl, config.publicUrl.replace('//localhost', '//127.0.0.1')] : [config.publicUrl],
     telemetry: { enabled: false },
     database: drizzleAdapter(db, { provider: 'pg', schema: { user, session, account, verification } }),
     emailAndPassword: {

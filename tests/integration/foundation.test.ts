@@ -258,3 +258,30 @@ describe('password reset by e-mail', () => {
     expect(status.body.catcher).toBe(true);
   });
 });
+
+describe('security', () => {
+  it('sends protective headers', async () => {
+    const r = await new Client(app.url).get('/api/health');
+    expect(r.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(r.headers.get('content-security-policy')).toMatch(/default-src 'self'/);
+    expect(r.headers.get('x-powered-by')).toBeNull();
+  });
+
+  it('refuses a change sent from another site, and changes nothing', async () => {
+    const target = await makeUser(app, { status: 'pending' });
+    const r = await coordinator.client.request('PATCH', `/api/members/${target.id}`, { status: 'active' }, { headers: { origin: 'https://evil.example' } });
+    expect(r.status).toBe(403);
+    expect(r.body.error.code).toBe('cross_site');
+    const r2 = await coordinator.client.request('PATCH', `/api/members/${target.id}`, { status: 'active' }, { headers: { 'sec-fetch-site': 'cross-site' } });
+    expect(r2.status).toBe(403);
+    const [row] = await app.ctx.db.select().from(user).where(eq(user.id, target.id));
+    expect(row.status).toBe('pending');
+  });
+
+  it('keeps the session cookie away from scripts and other sites', async () => {
+    const r = await new Client(app.url).post('/api/auth/sign-in/email', { email: coordinator.email, password: TEST_PASSWORD });
+    const cookie = r.headers.getSetCookie().find((c) => c.includes('session_token'))!;
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+  });
+});
