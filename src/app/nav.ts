@@ -16,6 +16,12 @@ export type NavItem = {
 
 export const NAV_ITEMS: NavItem[] = [
   { label: 'Home', to: patterns.home, access: 'active', end: true },
+  { label: 'Plants', to: patterns.plants, access: 'active' },
+  { label: 'Map', to: patterns.map, access: 'active' },
+  { label: 'Species', to: patterns.species, access: 'active' },
+  { label: 'Seasons', to: patterns.seasons, access: 'active' },
+  { label: 'Planner', to: patterns.planner, access: 'active' },
+  { label: 'Health', to: patterns.health, access: 'coordinator' },
   { label: 'Members', to: patterns.members, access: 'coordinator' },
   { label: 'Mailbox', to: patterns.mailbox, access: 'coordinator' },
 ];

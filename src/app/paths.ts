@@ -35,7 +35,35 @@ export const patterns = {
   plantEdit: '/plants/:id/edit',
   species: '/species',
   health: '/health',
+  seasons: '/seasons',
+  season: '/seasons/:seasonId',
+  seasonOffers: '/seasons/:seasonId/offers',
+  seasonRequest: '/seasons/:seasonId/request',
+  seasonBoard: '/seasons/:seasonId/board',
+  planner: '/planner',
+  map: '/map',
+  seasonRounds: '/seasons/:seasonId/rounds',
+  round: '/rounds/:roundId',
+  seasonPickups: '/seasons/:seasonId/pickups',
+  seasonCollections: '/seasons/:seasonId/collections',
+  bundleLabels: '/seasons/:seasonId/collections/labels',
 } as const;
+
+/** A request line handed to the request page (from the planner), read back by that page. */
+export type RequestLineSearch = {
+  speciesId: string;
+  varietyId?: string | null;
+  treatment?: string;
+  cuttings?: number;
+  /** The plan as JSON, kept on the line. */
+  plan?: string;
+};
+
+/** What the planner may start from: a hedgerow length (from the map) or a species. */
+export type PlannerSearch = { lengthM?: number; speciesId?: string; varietyId?: string | null; treatment?: string };
+
+/** The map's filters, kept in its address so a filtered map can be shared or bookmarked. */
+export type MapSearch = { speciesId?: string; varietyId?: string; status?: string; farmId?: string };
 
 export type MembersSearch = { status?: UserStatus; q?: string; page?: number };
 
@@ -59,6 +87,35 @@ export const paths = {
   plantEdit: (id: string) => `/plants/${encodeURIComponent(id)}/edit`,
   species: () => patterns.species,
   health: () => patterns.health,
+  seasons: () => patterns.seasons,
+  season: (seasonId: string) => `/seasons/${encodeURIComponent(seasonId)}`,
+  /** A farm's wood offers and pickup windows; `hash` 'pickup-windows' jumps to the windows. */
+  seasonOffers: (seasonId: string, farmId?: string, hash?: 'pickup-windows') =>
+    `${withQuery(`/seasons/${encodeURIComponent(seasonId)}/offers`, { farmId })}${hash ? `#${hash}` : ''}`,
+  seasonRequest: (seasonId: string, line?: RequestLineSearch) =>
+    withQuery(`/seasons/${encodeURIComponent(seasonId)}/request`, {
+      speciesId: line?.speciesId,
+      varietyId: line?.varietyId ?? undefined,
+      treatment: line?.treatment,
+      cuttings: line?.cuttings,
+      plan: line?.plan,
+    }),
+  seasonBoard: (seasonId: string, from?: { lat: number; lon: number }) =>
+    withQuery(`/seasons/${encodeURIComponent(seasonId)}/board`, { lat: from?.lat, lon: from?.lon }),
+  planner: (search: PlannerSearch = {}) =>
+    withQuery(patterns.planner, { lengthM: search.lengthM, speciesId: search.speciesId, varietyId: search.varietyId ?? undefined, treatment: search.treatment }),
+  map: (search: MapSearch = {}) =>
+    withQuery(patterns.map, { speciesId: search.speciesId, varietyId: search.varietyId, status: search.status, farmId: search.farmId }),
+  /** A season's allocation rounds (coordinator): the list and "Run an allocation round". */
+  seasonRounds: (seasonId: string) => `/seasons/${encodeURIComponent(seasonId)}/rounds`,
+  /** One round's review page (progress while solving, then the proposal, then the e-mail log). */
+  round: (roundId: string) => `/rounds/${encodeURIComponent(roundId)}`,
+  /** The signed-in grower's pickup slip for a season (printable). */
+  seasonPickups: (seasonId: string) => `/seasons/${encodeURIComponent(seasonId)}/pickups`,
+  /** Who collects what at a farm; without farmId the page picks the person's farm. */
+  seasonCollections: (seasonId: string, farmId?: string) => withQuery(`/seasons/${encodeURIComponent(seasonId)}/collections`, { farmId }),
+  /** Printable bundle labels for one farm's approved bundles. */
+  bundleLabels: (seasonId: string, farmId: string) => withQuery(`/seasons/${encodeURIComponent(seasonId)}/collections/labels`, { farmId }),
 };
 
 function withSearch(path: string, search?: URLSearchParams | string): string {

@@ -62,6 +62,109 @@ const routes: RouteObject[] = [
             errorElement: <RouteError />,
             lazy: async () => ({ Component: (await import('./routes/mailbox-route')).MailboxRoute }),
           },
+          {
+            path: patterns.plants,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plants-route')).PlantsRoute }),
+          },
+          {
+            path: patterns.plantNew,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-new-route')).PlantNewRoute }),
+          },
+          {
+            path: patterns.plantImport,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-import-route')).PlantImportRoute }),
+          },
+          {
+            path: patterns.plantLabels,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-labels-route')).PlantLabelsRoute }),
+          },
+          {
+            path: patterns.plant,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-route')).PlantRoute }),
+          },
+          {
+            path: patterns.plantEdit,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-edit-route')).PlantEditRoute }),
+          },
+          {
+            path: patterns.species,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/species-route')).SpeciesRoute }),
+          },
+          {
+            path: patterns.health,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/health-route')).HealthRoute }),
+          },
+          {
+            path: patterns.seasons,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/seasons-route')).SeasonsRoute }),
+          },
+          {
+            path: patterns.season,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/season-route')).SeasonRoute }),
+          },
+          {
+            path: patterns.seasonOffers,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/wood-offers-route')).WoodOffersRoute }),
+          },
+          {
+            path: patterns.seasonRequest,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/my-request-route')).MyRequestRoute }),
+          },
+          {
+            path: patterns.seasonBoard,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/wood-board-route')).WoodBoardRoute }),
+          },
+          {
+            path: patterns.planner,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/planner-route')).PlannerRoute }),
+          },
+          {
+            path: patterns.map,
+            errorElement: <RouteError />,
+            lazy: async () => {
+              const m = await import('./routes/map-route');
+              return { Component: m.MapRoute, loader: m.mapLoader };
+            },
+          },
+          {
+            path: patterns.seasonRounds,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/season-rounds-route')).SeasonRoundsRoute }),
+          },
+          {
+            path: patterns.round,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/round-route')).RoundRoute }),
+          },
+          {
+            path: patterns.seasonPickups,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/pickups-route')).PickupsRoute }),
+          },
+          {
+            path: patterns.seasonCollections,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/collections-route')).CollectionsRoute }),
+          },
+          {
+            path: patterns.bundleLabels,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/bundle-labels-route')).BundleLabelsRoute }),
+          },
         ],
       },
     ],

@@ -25,7 +25,9 @@ export function Dialog({
       if (typeof dialog.showModal === 'function') dialog.showModal();
       else dialog.setAttribute('open', '');
     } else if (!open && dialog.open) {
-      dialog.close();
+      // Older engines (and jsdom) have no close(): drop the attribute instead.
+      if (typeof dialog.close === 'function') dialog.close();
+      else dialog.removeAttribute('open');
     }
   }, [open]);
 

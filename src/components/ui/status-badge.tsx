@@ -26,7 +26,21 @@ export type StatusKind =
   // Wood on the board: asked against offered
   | 'scarce'
   | 'enough'
-  | 'unoffered';
+  | 'unoffered'
+  // Allocation rounds ('round_draft': a request already uses 'draft'; see roundStatusKind)
+  | 'round_draft'
+  | 'proposed'
+  | 'approved'
+  | 'notified'
+  // Bundles
+  | 'reserved'
+  | 'ready'
+  | 'collected'
+  | 'cancelled'
+  // E-mails sent for a round
+  | 'mail_queued'
+  | 'mail_sent'
+  | 'mail_failed';
 
 type StatusLook = { label: string; shape: StatusShape; tone: string };
 
@@ -54,7 +68,31 @@ export const STATUS_LOOKS: Record<StatusKind, StatusLook> = {
   scarce: { label: 'Scarce', shape: 'triangle', tone: 'border-amber/60 bg-amber-light text-amber' },
   enough: { label: 'Enough', shape: 'filled-square', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
   unoffered: { label: 'None offered', shape: 'octagon', tone: 'border-rust/50 bg-rust-light text-rust' },
+  // Allocation rounds: the shape fills as the round moves from working out to sent.
+  round_draft: { label: 'Draft', shape: 'hollow-circle', tone: 'border-bark-light bg-paper-deep text-bark' },
+  proposed: { label: 'Proposed, for review', shape: 'half-circle', tone: 'border-currant/40 bg-currant-light text-currant' },
+  approved: { label: 'Approved', shape: 'filled-circle', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
+  notified: { label: 'Notified', shape: 'filled-square', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
+  // Bundles
+  reserved: { label: 'Reserved', shape: 'diamond', tone: 'border-currant/40 bg-currant-light text-currant' },
+  ready: { label: 'Ready', shape: 'half-circle', tone: 'border-amber/60 bg-amber-light text-amber' },
+  collected: { label: 'Collected', shape: 'filled-circle', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
+  cancelled: { label: 'Cancelled', shape: 'cross', tone: 'border-ink-faint/50 bg-paper-deep text-ink-soft' },
+  // E-mails
+  mail_queued: { label: 'Queued', shape: 'hollow-circle', tone: 'border-bark-light bg-paper-deep text-bark' },
+  mail_sent: { label: 'Sent', shape: 'filled-circle', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
+  mail_failed: { label: 'Failed', shape: 'octagon', tone: 'border-rust/50 bg-rust-light text-rust' },
 };
+
+/** A round's status as a badge kind (a wood request already uses 'draft'). */
+export function roundStatusKind(status: 'draft' | 'proposed' | 'approved' | 'notified'): StatusKind {
+  return status === 'draft' ? 'round_draft' : status;
+}
+
+/** An e-mail log status as a badge kind. */
+export function mailStatusKind(status: string): StatusKind {
+  return status === 'sent' ? 'mail_sent' : status === 'failed' ? 'mail_failed' : 'mail_queued';
+}
 
 export function StatusShapeIcon({ shape, className }: { shape: StatusShape; className?: string }) {
   const props = {

@@ -25,6 +25,12 @@ describe('StatusBadge', () => {
     const families: StatusKind[][] = [
       ['pending', 'active', 'suspended'],
       ['clean', 'watch', 'hold', 'retired'],
+      ['planning', 'requests_open', 'allocating', 'collections', 'closed'],
+      ['draft', 'filed', 'withdrawn'],
+      ['scarce', 'enough', 'unoffered'],
+      ['round_draft', 'proposed', 'approved', 'notified'],
+      ['reserved', 'ready', 'collected', 'cancelled'],
+      ['mail_queued', 'mail_sent', 'mail_failed'],
     ];
     for (const family of families) {
       const shapes = family.map((status) => STATUS_LOOKS[status].shape);

@@ -52,6 +52,18 @@ export function CoordinatorHome({ me, pending }: { me: Me; pending: PendingCount
           </ButtonLink>
         </Card>
         <Card>
+          <CardTitle>Plant health</CardTitle>
+          <p className="text-ink-soft">Plants on hold or on watch, plants not inspected in time, findings over the months and members' district notes.</p>
+          <div className="mt-4 flex flex-wrap gap-2">
+            <ButtonLink variant="secondary" to={paths.health()}>
+              Open the health record
+            </ButtonLink>
+            <ButtonLink variant="secondary" to={paths.plants()}>
+              All plants
+            </ButtonLink>
+          </div>
+        </Card>
+        <Card>
           <CardTitle>Members</CardTitle>
           <p className="text-ink-soft">Admit, suspend or reinstate members, change roles and place people on farms.</p>
           <ButtonLink className="mt-4" variant="secondary" to={paths.members()}>

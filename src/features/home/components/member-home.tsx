@@ -1,4 +1,7 @@
+import type { ReactNode } from 'react';
 import type { Me } from '../../../../shared/schemas/members';
+import { paths } from '../../../app/paths';
+import { ButtonLink } from '../../../components/ui/button';
 import { Card, CardTitle } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
 import { FarmList } from './farm-list';
@@ -20,16 +23,22 @@ function FarmNextSteps({ me }: { me: Me }) {
         </li>
         {leads ? (
           <li>
-            Keep a note of your mother plants: variety, planting year, and where each one stands (bed and row). The plant register
-            opens on this page when your coordinator enables it, and that note is what you will enter.
+            Register your mother plants: variety, planting year, role and where each one stands (bed and row, or the position from
+            your phone). A whole list can come in from a CSV file.
           </li>
         ) : (
           <li>
-            The plant register opens on this page when your coordinator enables it. As a farm hand you will then record inspections
-            and shoot counts here, from your phone in the field.
+            Record inspections from your phone in the field: open a plant (or scan the QR code on its label) and choose “Record an
+            inspection”.
           </li>
         )}
       </ul>
+      <div className="mt-4 flex flex-wrap gap-2">
+        <ButtonLink to={paths.plants(new URLSearchParams({ mine: 'true' }))}>{me.farms.length > 1 ? "Your farms' plants" : "Your farm's plants"}</ButtonLink>
+        <ButtonLink variant="secondary" to={paths.plantNew()}>
+          Add a plant
+        </ButtonLink>
+      </div>
     </Card>
   );
 }
@@ -57,7 +66,7 @@ function GrowerOutlook() {
 }
 
 /** Home for an admitted member: their farms, or what is ahead for a grower without one. */
-export function MemberHome({ me }: { me: Me }) {
+export function MemberHome({ me, season }: { me: Me; /** The season card, composed by the route. */ season?: ReactNode }) {
   const hasFarms = me.farms.length > 0;
   return (
     <div>
@@ -67,6 +76,7 @@ export function MemberHome({ me }: { me: Me }) {
       />
       <div className="grid gap-5 lg:grid-cols-[2fr_1fr]">
         <div className="flex flex-col gap-5">
+          {season}
           {hasFarms ? (
             <>
               <FarmList farms={me.farms} />

@@ -6,6 +6,8 @@ import type { PlantListParams } from './keys';
 
 export const PLANT_PAGE_SIZES = [25, 50, 100] as const;
 export const DEFAULT_PLANT_PAGE_SIZE = 25;
+/** More than this many hand-picked plants: print the filtered list instead. */
+export const MAX_CHOSEN_FOR_LABELS = 100;
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 

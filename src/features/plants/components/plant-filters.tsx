@@ -87,7 +87,7 @@ export function PlantFilters({
           <label htmlFor={ids.search} className="font-medium">
             Search by code, variety, species or farm
           </label>
-          <TextInput id={ids.search} type="search" value={draft} maxLength={100} placeholder="e.g. WTH-0012 or Ben Sarek" onChange={(event) => setDraft(event.target.value)} />
+          <TextInput id={ids.search} type="search" value={draft} maxLength={100} placeholder="e.g. WTH-0012, or a variety" onChange={(event) => setDraft(event.target.value)} />
         </div>
         <Button
           variant="secondary"

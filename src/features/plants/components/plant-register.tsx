@@ -10,12 +10,9 @@ import { Loading } from '../../../components/ui/loading';
 import { errorMessage } from '../../../lib/api-client';
 import { usePlants } from '../api/get-plants';
 import type { PlantListParams } from '../api/keys';
-import { PLANT_PAGE_SIZES, activeFilterCount, exportCsvHref, plantParamsToSearch } from '../api/plant-params';
+import { MAX_CHOSEN_FOR_LABELS, PLANT_PAGE_SIZES, activeFilterCount, exportCsvHref, plantParamsToSearch } from '../api/plant-params';
 import { PlantFilters, type FarmOption } from './plant-filters';
 import { PlantsTable } from './plants-table';
-
-/** More than this many hand-picked plants: print the filtered list instead. */
-export const MAX_CHOSEN_FOR_LABELS = 100;
 
 export function PlantRegister({
   params,
@@ -147,18 +144,15 @@ export function PlantRegister({
             <label htmlFor={pageSizeId} className="text-sm font-medium">
               Plants per page
             </label>
-            <Select
-              id={pageSizeId}
-              className="w-28"
-              value={params.pageSize}
-              onChange={(event) => onParamsChange({ pageSize: Number(event.target.value), page: 1 })}
-            >
-              {PLANT_PAGE_SIZES.map((size) => (
-                <option key={size} value={size}>
-                  {size}
-                </option>
-              ))}
-            </Select>
+            <div className="w-28">
+              <Select id={pageSizeId} value={params.pageSize} onChange={(event) => onParamsChange({ pageSize: Number(event.target.value), page: 1 })}>
+                {PLANT_PAGE_SIZES.map((size) => (
+                  <option key={size} value={size}>
+                    {size}
+                  </option>
+                ))}
+              </Select>
+            </div>
           </div>
         </div>
       )}

@@ -10,10 +10,12 @@ import {
   type SortingState,
   type Updater,
 } from '@tanstack/react-table';
-import { useMemo } from 'react';
+import { useId, useMemo } from 'react';
 import { Link } from 'react-router-dom';
 import { LABELS } from '../../../../shared/domain';
 import type { PlantListItem, PlantSort } from '../../../../shared/schemas/register';
+import { Button } from '../../../components/ui/button';
+import { Select } from '../../../components/ui/field';
 import { StatusBadge } from '../../../components/ui/status-badge';
 import { Pager, TableShell, td, th } from '../../../components/ui/table-shell';
 import { cn } from '../../../lib/cn';
@@ -22,8 +24,6 @@ import { formatDay } from '../../../lib/format';
 // Module scope keeps features and columns stable between renders, as the table expects.
 const features = tableFeatures({ rowPaginationFeature, rowSortingFeature, rowSelectionFeature });
 const column = createColumnHelper<typeof features, PlantListItem>();
-
-const stackedCell = 'max-lg:flex max-lg:items-start max-lg:gap-3 max-lg:border-0 max-lg:py-1';
 
 /** Filled in by the page: the plant page's address (the feature does not know the routes). */
 export type PlantHref = (id: string) => string;
@@ -47,7 +47,7 @@ function columnsFor(plantHref: PlantHref) {
         </label>
       ),
       cell: ({ row }) => (
-        <label className="flex min-h-touch min-w-11 items-center justify-center max-lg:justify-start">
+        <label className="flex min-h-touch min-w-11 items-center justify-center">
           <span className="sr-only">Select {row.original.code}</span>
           <input type="checkbox" className="h-5 w-5 accent-leaf" checked={row.getIsSelected()} onChange={(event) => row.toggleSelected(event.target.checked)} />
         </label>
@@ -113,6 +113,17 @@ function SortMark({ direction }: { direction: false | 'asc' | 'desc' }) {
 
 const noPlants: PlantListItem[] = [];
 
+const SORT_WORDS: Record<PlantSort, string> = {
+  code: 'Code',
+  species: 'Species',
+  variety: 'Variety',
+  farm: 'Farm',
+  plantingYear: 'Planting year',
+  lastInspectedOn: 'Last inspected',
+  healthStatus: 'Health',
+  role: 'Role',
+};
+
 export function PlantsTable({
   plants,
   total,
@@ -150,6 +161,8 @@ export function PlantsTable({
     manualPagination: true,
     manualSorting: true,
     enableSortingRemoval: false,
+    // Every column starts ascending (A–Z, oldest first), whatever its type.
+    sortDescFirst: false,
     enableMultiSort: false,
     rowCount: total,
     state: { pagination, sorting, rowSelection: selection },
@@ -168,12 +181,63 @@ export function PlantsTable({
   });
 
   const rows = table.getRowModel().rows;
+  const sortId = useId();
 
   return (
     <>
-      {/* On a phone each plant becomes a stacked card: cells show their own column name. */}
-      <TableShell caption="Mother plants" tableClassName="max-lg:block lg:min-w-[64rem]">
-        <thead className="max-lg:sr-only">
+      {/* On a phone each plant is a short card: code and health first, then what and where. */}
+      <div className="mb-3 flex items-end gap-2 lg:hidden">
+        <div className="flex flex-1 flex-col gap-1.5">
+          <label htmlFor={sortId} className="text-sm font-medium">
+            Sort by
+          </label>
+          <Select id={sortId} value={sort} onChange={(event) => onSortChange(event.target.value as PlantSort, dir)}>
+            {(Object.keys(SORT_WORDS) as PlantSort[]).map((key) => (
+              <option key={key} value={key}>
+                {SORT_WORDS[key]}
+              </option>
+            ))}
+          </Select>
+        </div>
+        <Button variant="secondary" onClick={() => onSortChange(sort, dir === 'asc' ? 'desc' : 'asc')} aria-label={dir === 'asc' ? 'Ascending; switch to descending' : 'Descending; switch to ascending'}>
+          <SortMark direction={dir} />
+          {dir === 'asc' ? 'Up' : 'Down'}
+        </Button>
+      </div>
+      <ul className="flex flex-col gap-3 lg:hidden" aria-label="Mother plants">
+        {rows.map((row) => {
+          const plant = row.original;
+          return (
+            <li
+              key={row.id}
+              className={cn('rounded-card border border-paper-edge bg-white/70 p-3', row.getIsSelected() && 'border-leaf bg-leaf-light/60')}
+            >
+              <div className="flex items-center gap-2">
+                <label className="-m-1 flex min-h-touch min-w-11 items-center justify-center">
+                  <span className="sr-only">Select {plant.code}</span>
+                  <input type="checkbox" className="h-5 w-5 accent-leaf" checked={row.getIsSelected()} onChange={(event) => row.toggleSelected(event.target.checked)} />
+                </label>
+                <Link to={plantHref(plant.id)} className="min-h-touch flex-1 content-center text-lg font-semibold">
+                  {plant.code}
+                </Link>
+                <StatusBadge status={plant.healthStatus} />
+              </div>
+              <p className="mt-1">
+                <span className="font-medium">{plant.varietyName ?? 'Variety not named'}</span>
+                <span className="text-ink-soft"> · {plant.speciesName}</span>
+              </p>
+              <p className="text-sm text-ink-soft">
+                {plant.farmName} · planted {plant.plantingYear} · {LABELS.plantRole[plant.role]}
+              </p>
+              <p className="text-sm text-ink-soft">
+                Last inspected {plant.lastInspectedOn ? <time dateTime={plant.lastInspectedOn}>{formatDay(plant.lastInspectedOn)}</time> : 'never'}
+              </p>
+            </li>
+          );
+        })}
+      </ul>
+      <TableShell caption="Mother plants" className="max-lg:hidden" tableClassName="min-w-[64rem]">
+        <thead>
           {table.getHeaderGroups().map((group) => (
             <tr key={group.id}>
               {group.headers.map((header) => {
@@ -205,16 +269,11 @@ export function PlantsTable({
             </tr>
           ))}
         </thead>
-        <tbody className="max-lg:block">
+        <tbody>
           {rows.map((row) => (
-            <tr key={row.id} className={cn('max-lg:block max-lg:border-b-2 max-lg:border-paper-edge max-lg:py-2', row.getIsSelected() && 'bg-leaf-light/60')}>
+            <tr key={row.id} className={cn(row.getIsSelected() && 'bg-leaf-light/60')}>
               {row.getAllCells().map((cell) => (
-                <td key={cell.id} className={cn(td, stackedCell, cell.column.id === 'select' && 'w-12 px-1')}>
-                  {cell.column.id !== 'select' ? (
-                    <span aria-hidden="true" className="w-28 shrink-0 pt-0.5 text-sm font-semibold text-ink-soft lg:hidden">
-                      {typeof cell.column.columnDef.header === 'string' ? cell.column.columnDef.header : null}
-                    </span>
-                  ) : null}
+                <td key={cell.id} className={cn(td, cell.column.id === 'select' && 'w-12 px-1')}>
                   <table.FlexRender cell={cell} />
                 </td>
               ))}

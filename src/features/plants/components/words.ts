@@ -26,7 +26,8 @@ export const INSPECTED_LABELS = {
 export function named(label: string, message: string | undefined): string | undefined {
   if (!message) return undefined;
   const first = label.toLowerCase().split(/[\s(]/)[0];
-  return message.toLowerCase().startsWith(first) ? message : `${label}: ${message}`;
+  if (message.toLowerCase().startsWith(first)) return message;
+  return `${label}: ${message.charAt(0).toLowerCase()}${message.slice(1)}`;
 }
 
 /** "52.19910, -2.50558" */

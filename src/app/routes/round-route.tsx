@@ -1,0 +1,13 @@
+import { useParams } from 'react-router-dom';
+import { RoundReview } from '../../features/allocation-rounds/components/round-review';
+import { CoordinatorOnly } from './coordinator-only';
+
+export function RoundRoute() {
+  const { roundId = '' } = useParams();
+  return (
+    <CoordinatorOnly>
+      <title>Allocation round · Heelwood</title>
+      <RoundReview key={roundId} roundId={roundId} />
+    </CoordinatorOnly>
+  );
+}
