@@ -24,6 +24,9 @@ import { plannerRouter } from './modules/planner/planner.router.js';
 import { allocationRoundsRouter } from './modules/allocation-rounds/allocation-rounds.router.js';
 import { bundlesRouter } from './modules/bundles/bundles.router.js';
 import { tilesRouter } from './modules/map/tiles.router.js';
+import { strikeReportsRouter } from './modules/strike-reports/strike-reports.router.js';
+import { traceRouter } from './modules/trace/trace.router.js';
+import { figuresRouter } from './modules/figures/figures.router.js';
 import { plantsCsvRouter } from './modules/mother-plants/plants-csv.router.js';
 
 export async function createApp(ctx: AppContext): Promise<Express> {
@@ -66,6 +69,9 @@ export async function createApp(ctx: AppContext): Promise<Express> {
   app.use('/api/planner', plannerRouter(ctx));
   app.use('/api', allocationRoundsRouter(ctx));
   app.use('/api', bundlesRouter(ctx));
+  app.use('/api', strikeReportsRouter(ctx));
+  app.use('/api', traceRouter(ctx));
+  app.use('/api', figuresRouter(ctx));
 
   app.use('/api', (req) => {
     throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);

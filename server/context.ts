@@ -8,6 +8,7 @@ import { type Auth, createAuth } from './auth/auth.js';
 import { type MailCatcher, startMailCatcher } from './modules/mail/mail-catcher.js';
 import { createMailer, type Mailer } from './modules/mail/mailer.js';
 import { createTileSource, type TileSource } from './modules/map/tiles.sources.js';
+import { startReminderJob } from './modules/reminders/reminders.js';
 
 export type AppContext = {
   config: Config;
@@ -51,7 +52,7 @@ export async function createContext(config: Config, opts: ContextOptions = {}): 
     const tiles = await createTileSource(config.tilesSource, config.tilesDir);
     closers.unshift(() => tiles.close());
     const auth = createAuth(config, database.db, mailer);
-    return {
+    const ctx: AppContext = {
       config,
       database,
       db: database.db,
@@ -64,6 +65,9 @@ export async function createContext(config: Config, opts: ContextOptions = {}): 
         for (const c of closers) await c();
       },
     };
+    // Stopped first on close, before the mailer and the database it uses.
+    closers.unshift(startReminderJob(ctx));
+    return ctx;
   } catch (err) {
     for (const c of closers) await c();
     throw err;

@@ -143,7 +143,7 @@ describe('RoundReview', () => {
   });
 
   it('edits a bundle in place and shows the server refusal under the box', async () => {
-    fetchMock.mockImplementation(async (input, init) => {
+    fetchMock.mockImplementation(async (_input, init) => {
       if (init?.method === 'PATCH') {
         return json({ error: { code: 'BAD_REQUEST', message: 'Only 12 more cuttings are free on plant HOL-0012.', fields: { cuttings: 'at most 12' } } }, 400);
       }

@@ -73,7 +73,7 @@ function Visit({ visit, timezone, seasonId, farmId }: { visit: GrowerVisit; time
             </a>
           </p>
         </div>
-        <p className="text-right">
+        <p className="sm:text-right">
           {visit.window && timezone ? (
             <>
               <span className="block font-semibold tabular-nums">{formatWindow(visit.window.startsAt, visit.window.endsAt, timezone)}</span>

@@ -5,7 +5,6 @@ import type { FeatureCollection } from 'geojson';
 import type * as Leaflet from 'leaflet';
 import { useEffect, useMemo, useRef, useState, type Ref } from 'react';
 import { AttributionControl, MapContainer, ScaleControl, useMap } from 'react-leaflet';
-import type { HealthStatus } from '../../../../shared/domain';
 import type { MapFarm, MapPlant, OutlineFeature, TileMeta } from '../api/types';
 import { escapeHtml, formatLatLon } from '../lib/format';
 import { gridLines, gridStepForZoom } from '../lib/grid';
@@ -243,7 +242,51 @@ function FarmLayer({ farms, onSelect }: { farms: MapFarm[]; onSelect: (f: MapFar
   return null;
 }
 
-const plantStatus = new WeakMap<Leaflet.Marker, HealthStatus>();
+const plantOf = new WeakMap<Leaflet.Marker, MapPlant>();
+
+/**
+ * A plant's icon, whose HTML is written only when the marker is actually drawn: of 10,000
+ * markers only the few hundred unclustered in view ever are.
+ */
+let PlantIcon: (new (plant: MapPlant) => Leaflet.DivIcon) | undefined;
+function plantIcon(plant: MapPlant): Leaflet.DivIcon {
+  PlantIcon ??= L.DivIcon.extend({
+    initialize(this: Leaflet.DivIcon & { plant: MapPlant }, p: MapPlant) {
+      this.plant = p;
+      L.Util.setOptions(this, { className: 'hw-plant-icon', iconSize: [28, 28] });
+    },
+    createIcon(this: Leaflet.DivIcon & { plant: MapPlant }, old?: HTMLElement) {
+      this.options.html = plantIconHtml(this.plant);
+      return L.DivIcon.prototype.createIcon.call(this, old);
+    },
+  }) as unknown as new (plant: MapPlant) => Leaflet.DivIcon;
+  return new PlantIcon(plant);
+}
+
+/**
+ * Plants of each status under a cluster, summed from its child clusters and cached until its
+ * count changes, so redrawing a cluster of 10,000 does not walk 10,000 markers each time.
+ */
+type ClusterNode = Leaflet.MarkerCluster & { _markers: Leaflet.Marker[]; _childClusters: ClusterNode[]; _childCount: number };
+const clusterCounts = new WeakMap<ClusterNode, { n: number; counts: ClusterCounts }>();
+function countsOf(cluster: ClusterNode): ClusterCounts {
+  const cached = clusterCounts.get(cluster);
+  if (cached && cached.n === cluster._childCount) return cached.counts;
+  const counts: ClusterCounts = { clean: 0, watch: 0, hold: 0, retired: 0 };
+  for (const m of cluster._markers) {
+    const p = plantOf.get(m);
+    if (p) counts[p.healthStatus] += 1;
+  }
+  for (const c of cluster._childClusters) {
+    const sub = countsOf(c);
+    counts.clean += sub.clean;
+    counts.watch += sub.watch;
+    counts.hold += sub.hold;
+    counts.retired += sub.retired;
+  }
+  clusterCounts.set(cluster, { n: cluster._childCount, counts });
+  return counts;
+}
 
 function maxClusterRadius(zoom: number): number {
   if (zoom >= 19) return 14;
@@ -282,15 +325,14 @@ function PlantClusterLayer({ plants, onSelect, onDrawn }: { plants: MapPlant[]; 
       maxClusterRadius,
       spiderLegPolylineOptions: { weight: 1.5, color: '#6f543d', opacity: 0.6 },
       iconCreateFunction: (cluster) => {
-        const counts: ClusterCounts = { clean: 0, watch: 0, hold: 0, retired: 0 };
-        const children = cluster.getAllChildMarkers();
-        for (const m of children) {
-          const s = plantStatus.get(m);
-          if (s) counts[s] += 1;
-        }
-        const { html, size } = clusterIconHtml(children.length, counts);
+        const { html, size } = clusterIconHtml(cluster.getChildCount(), countsOf(cluster as ClusterNode));
         return L.divIcon({ html, className: 'hw-cluster-icon', iconSize: [size, size] });
       },
+    });
+    // One listener for every plant: the group hears its markers' clicks.
+    g.on('click', (e: Leaflet.LeafletEvent & { layer?: Leaflet.Marker }) => {
+      const p = e.layer && plantOf.get(e.layer);
+      if (p) onSelectRef.current(p);
     });
     g.addTo(map);
     setGroup(g);
@@ -303,12 +345,8 @@ function PlantClusterLayer({ plants, onSelect, onDrawn }: { plants: MapPlant[]; 
     if (!group) return;
     group.clearLayers();
     const markers = plants.map((p) => {
-      const m = L.marker([p.lat, p.lon], {
-        icon: L.divIcon({ html: plantIconHtml(p), className: 'hw-plant-icon', iconSize: [28, 28] }),
-        keyboard: true,
-      });
-      plantStatus.set(m, p.healthStatus);
-      m.on('click', () => onSelectRef.current(p));
+      const m = L.marker([p.lat, p.lon], { icon: plantIcon(p), keyboard: true });
+      plantOf.set(m, p);
       return m;
     });
     pending.current = { total: markers.length };

@@ -1,6 +1,7 @@
 import type { PickupSlip, PickupStop } from '../../../../shared/schemas/allocation';
 import { Button } from '../../../components/ui/button';
 import { StatusBadge } from '../../../components/ui/status-badge';
+import { groupCautions } from '../lib/cautions';
 import { formatWindow, zoneWords } from '../lib/farm-time';
 
 // On paper: black on white, no app header or buttons, each farm kept whole on a page, and
@@ -8,7 +9,7 @@ import { formatWindow, zoneWords } from '../lib/farm-time';
 const PRINT_CSS = `
 @page { size: A4 portrait; margin: 12mm; }
 @media print {
-  html { font-size: 10pt !important; background: #fff !important; }
+  html, body { font-size: 10pt !important; background: #fff !important; }
   body:has(.hw-slip) header,
   body:has(.hw-slip) .hw-no-print { display: none !important; }
   body:has(.hw-slip) main { padding: 0 !important; margin: 0 !important; max-width: none !important; }
@@ -63,7 +64,24 @@ function Stop({ stop, index }: { stop: PickupStop; index: number }) {
           )}
         </div>
       </div>
-      <table className="mt-4 w-full border-collapse text-left text-sm sm:text-base print:mt-2 print:text-[9.5pt]">
+      <ul className="mt-4 flex flex-col gap-2 sm:hidden print:hidden" aria-label={`Bundles to collect at ${stop.farmName}`}>
+        {stop.bundles.map((b) => (
+          <li key={b.id} className="rounded-lg border border-paper-edge bg-white px-3 py-2">
+            <p className="flex flex-wrap items-center justify-between gap-2">
+              <span className="whitespace-nowrap font-mono font-bold tracking-wide">{b.code ?? 'pending'}</span>
+              <StatusBadge status={b.status} />
+            </p>
+            <p>
+              <span className="font-semibold tabular-nums">{b.cuttings.toLocaleString('en')}</span> cuttings of {b.speciesName}
+              {b.varietyName ? ` ‘${b.varietyName}’` : ''}
+            </p>
+            <p className="text-sm text-ink-soft">
+              from plant <span className="font-mono">{b.plantCode}</span>
+            </p>
+          </li>
+        ))}
+      </ul>
+      <table className="mt-4 w-full border-collapse text-left text-base max-sm:hidden print:mt-2 print:table print:text-[9.5pt]">
         <caption className="sr-only">Bundles to collect at {stop.farmName}</caption>
         <thead>
           <tr className="border-b-2 border-paper-edge">
@@ -76,7 +94,7 @@ function Stop({ stop, index }: { stop: PickupStop; index: number }) {
             <th scope="col" className="py-1.5 pr-3 font-semibold text-ink-soft">
               Wood
             </th>
-            <th scope="col" className="py-1.5 pr-3 font-semibold text-ink-soft max-sm:hidden print:table-cell">
+            <th scope="col" className="py-1.5 pr-3 font-semibold text-ink-soft">
               Plant
             </th>
             <th scope="col" className="py-1.5 pr-3 text-right font-semibold text-ink-soft">
@@ -93,13 +111,12 @@ function Stop({ stop, index }: { stop: PickupStop; index: number }) {
               <td className="hidden py-2 pr-2 print:table-cell" aria-hidden="true">
                 <span className="hw-slip-box inline-block h-4 w-4 border border-ink" />
               </td>
-              <td className="py-2 pr-3 font-mono font-bold tracking-wide">{b.code ?? 'pending'}</td>
+              <td className="whitespace-nowrap py-2 pr-3 font-mono font-bold tracking-wide">{b.code ?? 'pending'}</td>
               <td className="py-2 pr-3">
                 {b.speciesName}
                 {b.varietyName ? ` ‘${b.varietyName}’` : ''}
-                <span className="block font-mono text-sm text-ink-soft sm:hidden print:hidden">plant {b.plantCode}</span>
               </td>
-              <td className="py-2 pr-3 font-mono max-sm:hidden print:table-cell">{b.plantCode}</td>
+              <td className="py-2 pr-3 font-mono">{b.plantCode}</td>
               <td className="py-2 pr-3 text-right tabular-nums">{b.cuttings.toLocaleString('en')}</td>
               <td className="py-2 print:hidden">
                 <StatusBadge status={b.status} />
@@ -135,10 +152,11 @@ export function PickupSlipView({ slip }: { slip: PickupSlip }) {
         </div>
       </div>
       <p className="mt-4 max-w-prose print:mt-2">
-        Collect {bundles === 1 ? '1 bundle' : `${bundles} bundles`} at {slip.stops.length === 1 ? '1 farm' : `${slip.stops.length} farms`}. Starting from{' '}
-        <span className="font-semibold">{slip.start.label}</span>, this order is the shortest round trip: about{' '}
+        Collect {bundles === 1 ? '1 bundle' : `${bundles} bundles`} at {slip.stops.length === 1 ? '1 farm' : `${slip.stops.length} farms`}.{' '}
+        {slip.stops.length > 1 ? 'Visit them in this order, the shortest round trip from ' : 'The round trip from '}
+        <span className="font-semibold">{slip.start.label}</span> is about{' '}
         <span className="font-semibold tabular-nums">{slip.roundTripKm.toLocaleString('en', { maximumFractionDigits: 1 })} km</span>. Each bundle carries its code on a
-        label; check it before you leave the farm.
+        label: check it before you leave the farm.
       </p>
       <ol className="mt-5 flex flex-col gap-4 print:mt-3 print:gap-2" aria-label="Farms in visiting order">
         {slip.stops.map((stop, i) => (
@@ -154,11 +172,18 @@ export function PickupSlipView({ slip }: { slip: PickupSlip }) {
           </svg>
           Handling and safety
         </h2>
-        <ul className="mt-2 flex list-disc flex-col gap-1.5 pl-5 print:gap-0.5 print:text-[9pt]">
-          {slip.cautions.map((c) => (
-            <li key={c}>{c}</li>
+        <div className="mt-3 grid gap-4 lg:grid-cols-3 print:mt-1 print:grid-cols-3 print:gap-3">
+          {groupCautions(slip.cautions).map((group) => (
+            <div key={group.title}>
+              <h3 className="font-semibold print:text-[9pt]">{group.title}</h3>
+              <ul className="mt-1 flex list-disc flex-col gap-1.5 pl-5 print:gap-0.5 print:text-[8.5pt]">
+                {group.items.map((c) => (
+                  <li key={c}>{c}</li>
+                ))}
+              </ul>
+            </div>
           ))}
-        </ul>
+        </div>
       </section>
     </article>
   );
