@@ -27,6 +27,7 @@ import { tilesRouter } from './modules/map/tiles.router.js';
 import { strikeReportsRouter } from './modules/strike-reports/strike-reports.router.js';
 import { traceRouter } from './modules/trace/trace.router.js';
 import { figuresRouter } from './modules/figures/figures.router.js';
+import { mapRouter } from './modules/map/map.router.js';
 import { plantsCsvRouter } from './modules/mother-plants/plants-csv.router.js';
 
 export async function createApp(ctx: AppContext): Promise<Express> {
@@ -72,6 +73,7 @@ export async function createApp(ctx: AppContext): Promise<Express> {
   app.use('/api', strikeReportsRouter(ctx));
   app.use('/api', traceRouter(ctx));
   app.use('/api', figuresRouter(ctx));
+  app.use('/api', mapRouter(ctx));
 
   app.use('/api', (req) => {
     throw new HttpError(404, 'not_found', `No such API route: ${req.method} ${req.originalUrl}`);

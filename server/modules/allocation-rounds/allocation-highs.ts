@@ -29,6 +29,8 @@ export type StageRun = {
   /** Row and column duals of an LP (min c'x - y'Ax convention: colDual = c - A'rowDual). */
   rowDual: Float64Array;
   colDual: Float64Array;
+  /** Final simplex basis of an LP, to warm-start a grown model. */
+  basis: { colStatus: Int32Array; rowStatus: Int32Array } | null;
   seconds: number;
 };
 
@@ -68,6 +70,7 @@ export function runStage(
   m: StageModel,
   settings: { timeLimit: number; relGap?: number; absGap?: number; target?: number },
   start?: Float64Array,
+  basis?: { colStatus: Int32Array; rowStatus: Int32Array },
 ): StageRun {
   const t0 = performance.now();
   const numCols = m.colCost.length;
@@ -98,6 +101,7 @@ export function runStage(
       });
       if (settings.target !== undefined) model.options.set({ objective_target: settings.target });
       if (start) model.setSolution({ colValue: start });
+      if (basis) model.setBasis(basis);
       if (process.env.HEELWOOD_HIGHS_LOG === '1') {
         model.run({
           [h.constants.callbackType.logging]: (e) => {
@@ -118,7 +122,12 @@ export function runStage(
       const gap = isMip ? Number(model.info.get('mip_gap')) : 0;
       const rowDual = sol && !isMip ? sol.rowDual : new Float64Array(numRows);
       const colDual = sol && !isMip ? sol.colDual : new Float64Array(numCols);
-      return { status, feasible, objective, dualBound, gap, x, rowDual, colDual, seconds: (performance.now() - t0) / 1000 };
+      let finalBasis: StageRun['basis'] = null;
+      if (!isMip && code === 7) {
+        const b = model.getBasis();
+        finalBasis = { colStatus: Int32Array.from(b.colStatus), rowStatus: Int32Array.from(b.rowStatus) };
+      }
+      return { status, feasible, objective, dualBound, gap, x, rowDual, colDual, basis: finalBasis, seconds: (performance.now() - t0) / 1000 };
     },
   );
 }

@@ -30,13 +30,32 @@
 //     worth less than half the cheapest visit: it only orders solutions with the same visits.
 //     travelKm reports the round trips of the farms visited, whatever farmVisitKm says.
 //
+// How it is solved (measured on this machine's WebAssembly HiGHS, see the benchmark):
+//  - Interchangeable offers (same farm, species, variety, reach) are pooled into lots, one
+//    column per (lot, line): exact, see allocation-arcs.ts.
+//  - Each stage's LP is solved by column generation over a growing subset of the arcs
+//    (allocation-stages.ts); small problems (ALL_ARCS_UP_TO) use every arc from the start.
+//  - Fairness: the LP bound t_LP, then the largest share value a line can reach (k / weight)
+//    at or below it whose whole-cutting floors can be met, checked by the volume LP with a
+//    slack on each floor. Without per-grower farm limits the model is a transportation
+//    problem (totally unimodular), so the simplex vertex is whole and the LP answers the
+//    integer question; with limits a fractional vertex goes to the MIP. The volume optimum
+//    then comes out of the same solve. Both are proven optimal when the LPs converged
+//    (stats.optimal).
+//  - Travel: the LP bound (with "visit at least one farm" rows for lines that must get
+//    wood), a rounding that keeps the LP's visits and re-solves the flow, then the MIP over
+//    the subset started from the best so far and stopped within `travelGap` of the bound.
+//    stats.gap is measured against a bound valid for the whole problem, never the subset's.
+//
 // Reproducible: offers and lines are sorted by id before anything is built, HiGHS runs with a
 // fixed seed on one thread, and lots are split over offers in id order. A time limit that cuts
 // a stage short can make the result depend on the machine's speed; the stats say so.
+//
+// HEELWOOD_HIGHS_LOG=1 prints HiGHS's log and HEELWOOD_ALLOC_TRACE=1 each LP round, to stderr.
 import { distanceM } from '../../../shared/geo.js';
 import { type Prepared, prepare, splitLots } from './allocation-arcs.js';
-import { highs, runStage } from './allocation-highs.js';
-import { buildMaster, type Ctx, context, type Master, price, type StageSpec, wholeCuttings } from './allocation-stages.js';
+import { highs, runStage, type StageRun } from './allocation-highs.js';
+import { buildMaster, carryBasis, type Ctx, context, type Master, price, pricingSlack, type StageSpec, wholeCuttings } from './allocation-stages.js';
 
 export type AllocOffer = { id: string; plantId: string; farmId: string; speciesId: string; varietyId: string | null; available: number; lat: number; lon: number };
 export type AllocLine = {
@@ -68,7 +87,7 @@ export type AllocResult = {
   assignments: { offerId: string; lineId: string; cuttings: number; distanceM: number }[];
   lines: { lineId: string; allocated: number; fill: number; reason: LineOutcome }[];
   stats: {
-    /** Compatible (offer, line) pairs within distance that can carry wood. */
+    /** Compatible (offer, line) pairs within distance, counted over the lots that can carry wood. */
     arcs: number;
     /** Columns HiGHS saw for them, after pooling interchangeable offers (see allocation-arcs.ts). */
     modelArcs: number;
@@ -238,9 +257,9 @@ function finish(
 }
 
 /** The first arcs a line works with: its nearest, until they could carry three times its request. */
-function startingArcs(c: Ctx): number[] {
+function startingArcs(c: Ctx, allArcsUpTo: number): number[] {
   const { p } = c;
-  if (c.n <= ALL_ARCS_UP_TO) return Array.from({ length: c.n }, (_, k) => k);
+  if (c.n <= allArcsUpTo) return Array.from({ length: c.n }, (_, k) => k);
   const out: number[] = [];
   for (let l = 0; l < p.lines.length; l++) {
     const ks: number[] = [];
@@ -262,7 +281,15 @@ function startingArcs(c: Ctx): number[] {
  * Fairness and volume are solved to proven optimality unless the time limit cuts them short
  * (then `stats.optimal` is false and the best solution found is kept).
  */
-export async function solveAllocation(input: AllocInput, opts: { timeLimitSeconds?: number; travelGap?: number } = {}): Promise<AllocResult> {
+export async function solveAllocation(
+  input: AllocInput,
+  opts: {
+    timeLimitSeconds?: number;
+    travelGap?: number;
+    /** Solve over all arcs from the start up to this many (default ALL_ARCS_UP_TO); 0 always grows a subset. */
+    allArcsUpTo?: number;
+  } = {},
+): Promise<AllocResult> {
   const started = performance.now();
   const limit = opts.timeLimitSeconds ?? 60;
   const travelGap = opts.travelGap ?? 0.005;
@@ -278,7 +305,7 @@ export async function solveAllocation(input: AllocInput, opts: { timeLimitSecond
   }
 
   // The working subset of arcs, only ever grown.
-  const subset = startingArcs(c);
+  const subset = startingArcs(c, opts.allArcsUpTo ?? ALL_ARCS_UP_TO);
   const inSubset = new Uint8Array(n);
   for (const k of subset) inSubset[k] = 1;
   const everyArc = () => subset.length === n;
@@ -289,19 +316,27 @@ export async function solveAllocation(input: AllocInput, opts: { timeLimitSecond
     }
     subset.sort((a, b) => a - b);
   };
-  /** LP over the subset, grown until no arc prices out (or time runs out). */
-  const solveLp = (spec: StageSpec) => {
+  /**
+   * LP over the subset, grown until no arc prices out, each round warm-started from the last
+   * basis. Stops growing at `deadline` (seconds left); `good` is the last optimal round.
+   */
+  const solveLp = (spec: StageSpec, deadline = 0) => {
     let seconds = 0;
     let rounds = 0;
+    let prev: { m: Master; basis: { colStatus: Int32Array; rowStatus: Int32Array } } | null = null;
+    let good: { m: Master; run: StageRun } | null = null;
     for (;;) {
       const m = buildMaster(c, [...subset], spec);
-      const run = runStage(h, m.model, { timeLimit: left() });
+      const run = runStage(h, m.model, { timeLimit: left() }, undefined, prev ? carryBasis(prev.m, prev.basis, m) : undefined);
       seconds += run.seconds;
       rounds++;
-      if (run.status !== 'optimal') return { m, run, seconds, converged: false, rounds };
+      if (process.env.HEELWOOD_ALLOC_TRACE === '1') console.error(`  ${spec.kind} LP round ${rounds}: ${m.arcs.length} arcs, ${m.model.rowLower.length} rows, ${run.status}, ${run.seconds.toFixed(2)} s, objective ${run.objective}`);
+      if (run.status !== 'optimal') return { m, run, seconds, converged: false, rounds, good };
+      good = { m, run };
+      if (run.basis) prev = { m, basis: run.basis };
       const more = everyArc() ? [] : price(c, m, spec, run.rowDual, run.colDual, inSubset);
-      if (more.length === 0) return { m, run, seconds, converged: true, rounds };
-      if (left() <= 0) return { m, run, seconds, converged: false, rounds };
+      if (more.length === 0) return { m, run, seconds, converged: true, rounds, good };
+      if (left() <= deadline) return { m, run, seconds, converged: false, rounds, good };
       grow(more);
     }
   };
@@ -314,7 +349,9 @@ export async function solveAllocation(input: AllocInput, opts: { timeLimitSecond
   const tLp = fairLp.run.status === 'optimal' ? Math.min(1, -fairLp.run.objective) : 0;
   let fairProven = fairLp.converged;
   let volProven = false;
-  let t = candidateAtMost(c, tLp + 1e-9);
+  // A hair above the LP bound, in case pricing tolerances left it a little low; a candidate
+  // that is not feasible is simply stepped down from.
+  let t = candidateAtMost(c, tLp + 1e-6);
   let floors = fairFloors(c, t);
   let arcs: Float64Array | null = null;
   let volSeconds = 0;
@@ -373,8 +410,33 @@ export async function solveAllocation(input: AllocInput, opts: { timeLimitSecond
   // 3. Travel: LP bound over all arcs, then the MIP over the subset, started from the volume
   // solution and stopped once within the gap of that bound.
   const travelSpec: StageSpec = { kind: 'travel', integer: false, floors, volume };
-  const travLp = solveLp(travelSpec);
-  const bound = travLp.converged ? travLp.run.objective : Number.NEGATIVE_INFINITY;
+  // The LP may use at most about half the time left, so that rounding and the MIP get theirs.
+  const travLp = solveLp(travelSpec, left() / 2);
+  const bound = travLp.converged ? travLp.run.objective - (everyArc() ? 0 : pricingSlack(c, inSubset, 'travel')) : Number.NEGATIVE_INFINITY;
+  let travSeconds = travLp.seconds;
+  let best = travelObjective(c, arcs);
+  // Rounding: keep every visit the LP makes, then the cheapest whole flow through those farms
+  // (an LP again; on these models its vertex is normally whole). A good start for the MIP.
+  if (travLp.good && left() > 0) {
+    const lp = travLp.good;
+    const open = new Uint8Array(p.gfGrower.length);
+    lp.m.colVisit.forEach((col, gf) => {
+      if (col >= 0 && lp.run.x[col] > 1e-9) open[gf] = 1;
+    });
+    const kept = subset.filter((k) => open[p.arcGf[k]] || p.gfLocked[p.arcGf[k]] > 0);
+    const mr = buildMaster(c, kept, travelSpec);
+    for (const col of mr.colVisit) if (col >= 0) mr.model.colLower[col] = 1;
+    const run = runStage(h, mr.model, { timeLimit: left() });
+    travSeconds += run.seconds;
+    if (run.status === 'optimal' && isWhole(run.x, mr.arcs.length)) {
+      const next = arcValues(c, mr, run.x);
+      const obj = travelObjective(c, next);
+      if (checkFeasible(c, next, floors) && next.reduce((s, v) => s + v, 0) + c.lockedTotal === volume && obj < best) {
+        arcs = next;
+        best = obj;
+      }
+    }
+  }
   const mipMaster = buildMaster(c, [...subset], { ...travelSpec, integer: true });
   const start = new Float64Array(mipMaster.model.colCost.length);
   mipMaster.arcs.forEach((k, j) => (start[j] = arcs![k]));
@@ -382,12 +444,10 @@ export async function solveAllocation(input: AllocInput, opts: { timeLimitSecond
     const gf = p.arcGf[mipMaster.arcs[j]];
     if (start[j] > 0 && mipMaster.colVisit[gf] >= 0) start[mipMaster.colVisit[gf]] = 1;
   }
-  const startObjective = travelObjective(c, arcs);
+  const startObjective = best;
   let travStatus = 'start';
-  let travSeconds = travLp.seconds;
-  let best = startObjective;
   let mipBound = Number.NEGATIVE_INFINITY;
-  if (!(bound > Number.NEGATIVE_INFINITY && startObjective <= bound + travelGap * Math.abs(startObjective) + 1e-9)) {
+  if (left() > 0 && !(bound > Number.NEGATIVE_INFINITY && startObjective <= bound + travelGap * Math.abs(startObjective) + 1e-9)) {
     const target = bound > Number.NEGATIVE_INFINITY ? bound + travelGap * Math.abs(bound) : undefined;
     const mip = runStage(h, mipMaster.model, { timeLimit: left(), relGap: travelGap, absGap: 1e-6, target }, start);
     travSeconds += mip.seconds;
@@ -402,7 +462,7 @@ export async function solveAllocation(input: AllocInput, opts: { timeLimitSecond
     }
     // Over every arc HiGHS's own bound holds for the whole problem too.
     if (everyArc() && Number.isFinite(mip.dualBound)) mipBound = mip.dualBound;
-  } else travStatus = 'optimal_within_gap';
+  } else travStatus = left() > 0 ? 'optimal_within_gap' : 'time_limit';
   const lower = Math.max(bound, mipBound);
   const gap = Number.isFinite(lower) && best > 0 ? Math.max(0, (best - lower) / Math.abs(best)) : best === 0 ? 0 : 1;
   stages.push({ name: 'travel', objective: best, status: travStatus, seconds: round3(travSeconds) });

@@ -27,6 +27,8 @@ export type Ctx = {
   /** Travel tie-break cost of one cutting on each arc. */
   travelCost: Float64Array;
   lockedTotal: number;
+  /** The line has an arc to a farm its grower visits anyway for a locked bundle. */
+  lineVisitLocked: Uint8Array;
 };
 
 export const wholeCuttings = (p: Prepared, l: number) => Math.max(0, Math.floor(p.lines[l].cuttings));
@@ -83,6 +85,8 @@ export function context(p: Prepared, farmVisitKm: number | undefined): Ctx {
   const travelCost = new Float64Array(n);
   for (let k = 0; k < n; k++) travelCost[k] = tau * (p.arcDistM[k] / 1000 + (p.arcSubstitute[k] ? SUBSTITUTE_KM : 0));
   const lockedTotal = p.locks.reduce((s, k) => s + k.cuttings, 0);
+  const lineVisitLocked = new Uint8Array(L);
+  for (let k = 0; k < n; k++) if (p.gfLocked[p.arcGf[k]] > 0) lineVisitLocked[p.arcLine[k]] = 1;
   return {
     p,
     n,
@@ -97,6 +101,7 @@ export function context(p: Prepared, farmVisitKm: number | undefined): Ctx {
     tau,
     travelCost,
     lockedTotal,
+    lineVisitLocked,
   };
 }
 
@@ -122,10 +127,32 @@ export type Master = {
   rowShare: Int32Array;
   rowVolume: number;
   rowLink: Int32Array;
+  /** Travel: per line with a floor, "visit at least one of its farms". */
+  rowCover: Int32Array;
   colT: number;
   colSlack: Int32Array;
   colVisit: Int32Array;
+  /** Stable identities of columns and rows across grown masters (for warm starts). */
+  colKey: Float64Array;
+  rowKey: Float64Array;
 };
+
+/**
+ * Arcs whose reduced cost is above -PRICE_TOL[kind] are left out: the LP bound may then be
+ * off by at most that times the capacities of the arcs left out, which `pricingSlack` adds
+ * up. Travel costs are in km (a visit is tens of km), so 1e-7 there is far below anything
+ * that counts, and it stops the column generation from chasing tie-break crumbs.
+ */
+/** Arcs added per line and pricing round. */
+const PER_LINE = 8;
+
+export const PRICE_TOL: Record<StageKind, number> = { fairness: 1e-10, volume: 1e-9, travel: 1e-7 };
+
+export function pricingSlack(c: Ctx, inSubset: Uint8Array, kind: StageKind): number {
+  let s = 0;
+  for (let k = 0; k < c.n; k++) if (!inSubset[k]) s += c.p.arcUb[k];
+  return PRICE_TOL[kind] * s;
+}
 
 /** Cost of one volume slack cutting: more than any volume can be worth. */
 export const slackCost = (c: Ctx) => 1 + c.p.lineNeed.reduce((s, v) => s + v, 0);
@@ -139,20 +166,31 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
   const rowGf = new Int32Array(p.gfGrower.length).fill(-1);
   const rowShare = new Int32Array(L).fill(-1);
   const rowLink = new Int32Array(c.linkLine.length).fill(-1);
+  const rowCover = new Int32Array(L).fill(-1);
   const colSlack = new Int32Array(L).fill(-1);
   const colVisit = new Int32Array(p.gfGrower.length).fill(-1);
   const rLo: number[] = [];
   const rUp: number[] = [];
-  const newRow = (lo: number, up: number) => {
+  const rKey: number[] = [];
+  // Row identities: lots, lines, (grower, farm) limits, shares, the volume row, links, covers.
+  const nLots = p.lots.length;
+  const nGf = p.gfGrower.length;
+  const nLinks = c.linkLine.length;
+  const R = { lot: 0, line: nLots, gf: nLots + L, share: nLots + L + nGf, volume: nLots + 2 * L + nGf, link: nLots + 2 * L + nGf + 1, cover: nLots + 2 * L + nGf + 1 + nLinks };
+  const newRow = (lo: number, up: number, key: number) => {
     rLo.push(lo);
     rUp.push(up);
+    rKey.push(key);
     return rLo.length - 1;
   };
   const cost: number[] = [];
   const cLo: number[] = [];
   const cUp: number[] = [];
   const cInt: number[] = [];
-  const newCol = (cc: number, lo: number, up: number, int: boolean) => {
+  const cKey: number[] = [];
+  // Column identities: arcs, then t, then slacks per line, then visits per (grower, farm).
+  const newCol = (cc: number, lo: number, up: number, int: boolean, key: number) => {
+    cKey.push(key);
     cost.push(cc);
     cLo.push(lo);
     cUp.push(up);
@@ -171,21 +209,21 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
   // Arc columns first, so that column j is arcs[j].
   for (const k of arcs) {
     const cc = spec.kind === 'fairness' ? 0 : spec.kind === 'volume' ? -1 : c.travelCost[k];
-    newCol(cc, 0, p.arcUb[k], spec.integer);
+    newCol(cc, 0, p.arcUb[k], spec.integer, k);
   }
   let colT = -1;
-  if (spec.kind === 'fairness') colT = newCol(-1, 0, 1, false);
+  if (spec.kind === 'fairness') colT = newCol(-1, 0, 1, false, c.n);
 
   arcs.forEach((k, j) => {
     const lot = p.arcLot[k];
     const l = p.arcLine[k];
     const gf = p.arcGf[k];
-    if (rowLot[lot] < 0) rowLot[lot] = newRow(-Infinity, p.lots[lot].cap);
-    if (rowLine[l] < 0) rowLine[l] = newRow(spec.kind === 'travel' && spec.floors![l] > 0 ? spec.floors![l] : -Infinity, p.lineNeed[l]);
+    if (rowLot[lot] < 0) rowLot[lot] = newRow(-Infinity, p.lots[lot].cap, R.lot + lot);
+    if (rowLine[l] < 0) rowLine[l] = newRow(spec.kind === 'travel' && spec.floors![l] > 0 ? spec.floors![l] : -Infinity, p.lineNeed[l], R.line + l);
     entry(rowLot[lot], j, 1);
     entry(rowLine[l], j, 1);
     if (Number.isFinite(p.gfLimit[gf])) {
-      if (rowGf[gf] < 0) rowGf[gf] = newRow(-Infinity, p.gfLimit[gf]);
+      if (rowGf[gf] < 0) rowGf[gf] = newRow(-Infinity, p.gfLimit[gf], R.gf + gf);
       entry(rowGf[gf], j, 1);
     }
   });
@@ -194,7 +232,7 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
   if (spec.kind === 'fairness') {
     // allocated(l) >= t * weight(l): sum of arcs - weight * t >= -locked.
     for (const l of c.fairLines) {
-      rowShare[l] = newRow(-p.lineLocked[l], Infinity);
+      rowShare[l] = newRow(-p.lineLocked[l], Infinity, R.share + l);
       entry(rowShare[l], colT, -c.fairWeight[l]);
     }
     arcs.forEach((k, j) => {
@@ -207,8 +245,8 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
     const big = slackCost(c);
     for (let l = 0; l < L; l++) {
       if (!(spec.floors![l] > 0)) continue;
-      rowShare[l] = newRow(spec.floors![l], Infinity);
-      colSlack[l] = newCol(big, 0, Infinity, false);
+      rowShare[l] = newRow(spec.floors![l], Infinity, R.share + l);
+      colSlack[l] = newCol(big, 0, Infinity, false, c.n + 1 + l);
       entry(rowShare[l], colSlack[l], 1);
     }
     arcs.forEach((k, j) => {
@@ -217,20 +255,33 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
     });
     // Lines with a floor but no arc in the subset yet still need their line row for pricing.
   } else {
-    rowVolume = newRow(spec.volume! - c.lockedTotal, Infinity);
+    rowVolume = newRow(spec.volume! - c.lockedTotal, Infinity, R.volume);
     arcs.forEach((_, j) => entry(rowVolume, j, 1));
     // A visit per (grower, farm) unless a locked bundle already takes the grower there.
     arcs.forEach((k, j) => {
       const gf = p.arcGf[k];
       if (p.gfLocked[gf] > 0) return;
-      if (colVisit[gf] < 0) colVisit[gf] = newCol(c.visitCost[gf], 0, 1, spec.integer);
+      if (colVisit[gf] < 0) colVisit[gf] = newCol(c.visitCost[gf], 0, 1, spec.integer, c.n + 1 + L + gf);
       const link = c.arcLink[k];
       if (rowLink[link] < 0) {
-        rowLink[link] = newRow(-Infinity, 0);
+        rowLink[link] = newRow(-Infinity, 0, R.link + link);
         entry(rowLink[link], colVisit[gf], -c.linkM[link]);
       }
       entry(rowLink[link], j, 1);
     });
+    // A line that must get at least one more cutting needs at least one of its farms visited:
+    // the whole-number rounding of the linking rows, which the LP relaxation alone misses
+    // badly for lines that get only part of their request.
+    for (let l = 0; l < L; l++) {
+      if (!(spec.floors![l] >= 1) || c.lineVisitLocked[l]) continue;
+      const ys = new Set<number>();
+      for (let k = c.lineStart[l]; k < c.lineStart[l + 1]; k++) {
+        const y = colVisit[p.arcGf[k]];
+        if (y >= 0) ys.add(y);
+      }
+      rowCover[l] = newRow(1, Infinity, R.cover + l);
+      for (const y of [...ys].sort((a, b) => a - b)) entry(rowCover[l], y, 1);
+    }
   }
 
   let offset = 0;
@@ -271,9 +322,24 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
     rowShare,
     rowVolume,
     rowLink,
+    rowCover,
     colT,
     colSlack,
     colVisit,
+    colKey: Float64Array.from(cKey),
+    rowKey: Float64Array.from(rKey),
+  };
+}
+
+/** A warm start for a grown master from the basis of the previous one: new columns at zero, new rows basic. */
+export function carryBasis(prev: Master, basis: { colStatus: Int32Array; rowStatus: Int32Array }, next: Master) {
+  const cols = new Map<number, number>();
+  prev.colKey.forEach((key, j) => cols.set(key, basis.colStatus[j]));
+  const rows = new Map<number, number>();
+  prev.rowKey.forEach((key, i) => rows.set(key, basis.rowStatus[i]));
+  return {
+    colStatus: Int32Array.from(next.colKey, (key) => cols.get(key) ?? 0),
+    rowStatus: Int32Array.from(next.rowKey, (key) => rows.get(key) ?? 1),
   };
 }
 
@@ -286,7 +352,21 @@ export function price(c: Ctx, m: Master, spec: StageSpec, rowDual: Float64Array,
   const { p } = c;
   const d = (row: number) => (row >= 0 ? rowDual[row] : 0);
   const out: number[] = [];
-  const tol = spec.kind === 'travel' ? 1e-9 : 1e-7;
+  // A new visit column would enter the cover rows of its grower's lines at that farm; counting
+  // all the grower's cover duals makes the estimate low, never high, so no column is missed.
+  const growerCover = new Float64Array(p.growerIds.length);
+  if (spec.kind === 'travel') for (let l = 0; l < p.lines.length; l++) if (m.rowCover[l] >= 0) growerCover[p.lineGrower[l]] += Math.max(0, rowDual[m.rowCover[l]]);
+  const tol = PRICE_TOL[spec.kind];
+  // Arcs of a line are contiguous: keep each line's most attractive few per round (nearest
+  // first among equals), so that the subset grows where it matters and stays small.
+  let lineAt = -1;
+  const pending: { k: number; rc: number }[] = [];
+  const flush = (next: number) => {
+    pending.sort((a, b) => a.rc - b.rc || p.arcDistM[a.k] - p.arcDistM[b.k] || a.k - b.k);
+    for (let i = 0; i < pending.length && i < PER_LINE; i++) out.push(pending[i].k);
+    pending.length = 0;
+    lineAt = next;
+  };
   for (let k = 0; k < c.n; k++) {
     if (inSubset[k]) continue;
     const l = p.arcLine[k];
@@ -299,11 +379,15 @@ export function price(c: Ctx, m: Master, spec: StageSpec, rowDual: Float64Array,
       const link = c.arcLink[k];
       if (m.rowLink[link] >= 0) rc -= rowDual[m.rowLink[link]];
       else if (p.gfLocked[gf] === 0) {
-        const yCost = m.colVisit[gf] >= 0 ? colDual[m.colVisit[gf]] : c.visitCost[gf];
+        const yCost = m.colVisit[gf] >= 0 ? colDual[m.colVisit[gf]] : c.visitCost[gf] - growerCover[p.gfGrower[gf]];
         rc += Math.max(0, yCost) / c.linkM[link];
       }
     }
-    if (rc < -tol) out.push(k);
+    if (rc < -tol) {
+      if (l !== lineAt) flush(l);
+      pending.push({ k, rc });
+    }
   }
+  flush(-1);
   return out;
 }

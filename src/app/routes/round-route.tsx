@@ -6,7 +6,6 @@ export function RoundRoute() {
   const { roundId = '' } = useParams();
   return (
     <CoordinatorOnly>
-      <title>Allocation round · Heelwood</title>
       <RoundReview key={roundId} roundId={roundId} />
     </CoordinatorOnly>
   );

@@ -5,6 +5,7 @@ import userEvent from '@testing-library/user-event';
 import { MemoryRouter } from 'react-router-dom';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { REASON_TEXT, type RoundBundle, type RoundLine, type RoundView } from '../../../../shared/schemas/allocation';
+import type { OfferRow } from '../../../../shared/schemas/seasons';
 import { RoundReview } from '../components/round-review';
 
 const bundle: RoundBundle = {
@@ -205,5 +206,45 @@ describe('RoundReview', () => {
     await user.click(screen.getByRole('button', { name: 'Send failed ones again' }));
     expect(await screen.findByText('Sent again: 1; still failing: 0.')).toBeTruthy();
     expect(fetchMock.mock.calls.some(([url, init]) => url === '/api/rounds/r1/resend' && init?.method === 'POST')).toBe(true);
+  });
+  it('adds a bundle by hand from a farm\'s compatible offers', async () => {
+    const figOffer: OfferRow = {
+      plantId: 'p9',
+      code: 'HOL-0030',
+      farmId: 'f1',
+      farmName: 'Hollow Farm',
+      speciesName: 'Fig',
+      varietyName: 'Garden Wall Purple',
+      role: 'stock_bed',
+      healthStatus: 'clean',
+      lastInspectedOn: '2026-11-01',
+      eligible: true,
+      whyNot: null,
+      cuttingLengthCm: 20,
+      softTipCm: 5,
+      capFraction: 0.9,
+      offer: { id: 'o9', shootCount: null, meanShootLengthCm: null, directCount: 30, estimatedYield: 30, offered: 27, reserved: 0, withdrawnAt: null, withdrawnReason: null },
+    };
+    const blackcurrant: OfferRow = { ...figOffer, plantId: 'p1', code: 'HOL-0012', speciesName: 'Blackcurrant', varietyName: 'Ben Hope', offer: { ...figOffer.offer!, id: 'o1' } };
+    fetchMock.mockImplementation(async (input, init) => {
+      const url = String(input);
+      if (url.startsWith('/api/farms')) return json({ items: [{ id: 'f1', code: 'HOL', name: 'Hollow Farm', address: '', lat: 52, lon: -2, memberCount: 1, plantCount: 2 }], total: 1 });
+      if (url === '/api/seasons/s1/farms/f1/offers') return json({ items: [blackcurrant, figOffer], total: 2 });
+      if (init?.method === 'POST' && url === '/api/rounds/r1/bundles') return json(proposed, 201);
+      return json(proposed);
+    });
+    const user = userEvent.setup();
+    renderReview();
+    await user.click(await screen.findByRole('button', { name: 'Add a bundle for this line' }));
+    const dialog = screen.getByRole('dialog', { name: 'Add a bundle', hidden: true });
+    await user.selectOptions(within(dialog).getByRole('combobox', { name: 'Farm', hidden: true }), 'f1');
+    // Only the fig plant fits the fig line; it starts at what the line still lacks.
+    const choice = await within(dialog).findByRole('radio', { hidden: true });
+    expect(choice.closest('label')?.textContent).toMatch(/HOL-0030.*27 free/);
+    await user.click(choice);
+    expect((within(dialog).getByRole('spinbutton', { name: /Cuttings/, hidden: true }) as HTMLInputElement).value).toBe('20');
+    await user.click(within(dialog).getByRole('button', { name: 'Add the bundle', hidden: true }));
+    const post = fetchMock.mock.calls.find(([url, init]) => url === '/api/rounds/r1/bundles' && init?.method === 'POST')!;
+    expect(JSON.parse(String(post[1]?.body))).toEqual({ offerId: 'o9', lineId: 'l2', cuttings: 20 });
   });
 });

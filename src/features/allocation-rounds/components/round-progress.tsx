@@ -34,7 +34,18 @@ export function RoundProgress({ round }: { round: Pick<RoundView, 'running' | 'c
           come back.
         </p>
       </div>
-      <progress className="mt-4 h-3 w-full accent-currant" max={SOLVE_STEPS.length} value={step - 0.5} aria-label={`Step ${step} of ${SOLVE_STEPS.length}`} />
+      {/* A bar of our own colours (a native <progress> paints the browser's green and grey). */}
+      <div
+        role="progressbar"
+        aria-label={`Step ${step} of ${SOLVE_STEPS.length}`}
+        aria-valuemin={0}
+        aria-valuemax={SOLVE_STEPS.length}
+        aria-valuenow={step}
+        aria-valuetext={`Step ${step} of ${SOLVE_STEPS.length}: ${SOLVE_STEPS[step - 1]}`}
+        className="mt-4 h-3 w-full overflow-hidden rounded-full border border-currant/30 bg-white"
+      >
+        <div className="h-full rounded-full bg-currant transition-[width] duration-700" style={{ width: `${((step - 0.5) / SOLVE_STEPS.length) * 100}%` }} />
+      </div>
       <ol className="mt-3 grid gap-2 sm:grid-cols-3">
         {SOLVE_STEPS.map((name, i) => {
           const state = i + 1 < step ? 'done' : i + 1 === step ? 'now' : 'later';

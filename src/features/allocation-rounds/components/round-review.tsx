@@ -72,12 +72,22 @@ export function RoundReview({ roundId }: { roundId: string }) {
   const [removing, setRemoving] = useState<RoundBundle | null>(null);
   const [adding, setAdding] = useState<RoundLine | null>(null);
 
-  if (query.isPending) return <Loading label="Loading the round…" />;
+  if (query.isPending) {
+    return (
+      <>
+        <title>Allocation round · Heelwood</title>
+        <Loading label="Loading the round…" />
+      </>
+    );
+  }
   if (query.isError) {
     return (
-      <Alert tone="danger" title="The round did not load">
-        {errorMessage(query.error)}
-      </Alert>
+      <>
+        <title>Allocation round · Heelwood</title>
+        <Alert tone="danger" title="The round did not load">
+          {errorMessage(query.error)}
+        </Alert>
+      </>
     );
   }
   const round = query.data;

@@ -63,9 +63,12 @@ export function RoundSummary({ stats, bundles, lines }: { stats: Stats; bundles:
               return (
                 <li key={s.name} className="grid gap-x-4 gap-y-0.5 py-2 sm:grid-cols-[16rem_1fr_12rem_6rem] sm:items-baseline">
                   <span className="font-semibold">{words?.title ?? s.name}</span>
-                  <span className="tabular-nums">{words ? words.figure(s.objective) : s.objective}</span>
-                  <span className="text-ink-soft">{statusWords(s.status)}</span>
-                  <span className="tabular-nums text-ink-soft sm:text-right">{s.seconds.toLocaleString('en', { maximumFractionDigits: 2 })} s</span>
+                  {/* One line on a phone; three grid columns from the small breakpoint up. */}
+                  <span className="flex flex-wrap gap-x-3 sm:contents">
+                    <span className="tabular-nums">{words ? words.figure(s.objective) : s.objective}</span>
+                    <span className="text-ink-soft">{statusWords(s.status)}</span>
+                    <span className="tabular-nums text-ink-soft sm:text-right">{s.seconds.toLocaleString('en', { maximumFractionDigits: 2 })} s</span>
+                  </span>
                 </li>
               );
             })}

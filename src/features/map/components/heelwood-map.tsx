@@ -185,13 +185,15 @@ function FitView({ fitKey, points }: { fitKey: string; points: { lat: number; lo
   const last = useRef<string | null>(null);
   useEffect(() => {
     if (last.current === fitKey || !points.length) return;
+    // The first view jumps straight there: an animated zoom would hold up the clustering.
+    const animate = last.current !== null;
     last.current = fitKey;
     if (points.length === 1) {
-      map.setView([points[0].lat, points[0].lon], 16);
+      map.setView([points[0].lat, points[0].lon], 16, { animate });
       return;
     }
     const b = L.latLngBounds(points.map((p) => [p.lat, p.lon] as [number, number]));
-    map.fitBounds(b, { padding: [36, 36], maxZoom: 17 });
+    map.fitBounds(b, { padding: [36, 36], maxZoom: 17, animate });
   }, [map, fitKey, points]);
   return null;
 }
