@@ -6,7 +6,7 @@ import { EmptyState } from '../../components/ui/empty-state';
 import { Loading } from '../../components/ui/loading';
 import { PageHeader } from '../../components/ui/page-header';
 import { paths } from '../paths';
-import { useCollectionFarm } from './collections-shared';
+import { useCollectionFarm } from './collection-routes-shared';
 import { useSignedIn } from './use-signed-in';
 
 export function BundleLabelsRoute() {

@@ -61,7 +61,7 @@ export function qrDataUrl(text: string): Promise<string> {
 const PRINT_CSS = `
 @page { size: A4 portrait; margin: 10mm; }
 @media print {
-  html { font-size: 100% !important; background: #fff !important; }
+  html, body { font-size: 100% !important; background: #fff !important; }
   body:has(.hw-bundle-sheet) header,
   body:has(.hw-bundle-sheet) .hw-no-print { display: none !important; }
   body:has(.hw-bundle-sheet) main { padding: 0 !important; margin: 0 !important; max-width: none !important; }
