@@ -22,7 +22,30 @@ export function SeasonActions({ season, me }: { season: Season; me: Me }) {
       body: open ? 'Ask for cuttings by variety, or any variety of a species, from farms within your distance.' : 'See what you asked for this season.',
     },
   ];
+  // After approval: pickups for growers, collections for farms, rounds for the coordinator.
+  const afterApproval = season.stage === 'allocating' || season.stage === 'collections' || season.stage === 'closed';
+  if (afterApproval) {
+    actions.push({
+      to: paths.seasonPickups(season.id),
+      title: 'My pickups',
+      body: 'Your pickup slip: which farms to visit, when, in which order, and which bundles to collect.',
+    });
+  }
+  if (coordinator) {
+    actions.push({
+      to: paths.seasonRounds(season.id),
+      title: 'Allocation rounds',
+      body: season.stage === 'allocating' ? 'Run a round, review and edit it, approve it and send the pickup slips.' : 'Rounds run while the season is allocating; earlier rounds are listed here.',
+    });
+  }
   for (const farm of me.farms) {
+    if (afterApproval) {
+      actions.push({
+        to: paths.seasonCollections(season.id, farm.farmId),
+        title: `Collections at ${farm.farmName}`,
+        body: 'Who comes when, which bundles from which plants; mark them collected and print bundle labels.',
+      });
+    }
     actions.push({
       to: paths.seasonOffers(season.id, farm.farmId),
       title: `Wood offers of ${farm.farmName}`,
