@@ -403,9 +403,11 @@ export async function solveAllocation(
     volProven = false;
   }
   const alloc = lineTotals(c, arcs);
-  stages.push({ name: 'fairness', objective: shareOf(c, alloc), status: fairLp.run.status, seconds: round3(fairLp.seconds) });
+  // 'optimal' only when proven over every arc; 'feasible' when time or steps ran out first.
+  const proven = (ok: boolean, status: string) => (ok ? 'optimal' : status === 'optimal' ? 'feasible' : status);
+  stages.push({ name: 'fairness', objective: shareOf(c, alloc), status: proven(fairProven, fairLp.run.status), seconds: round3(fairLp.seconds) });
   const volume = alloc.reduce((s, v) => s + v, 0);
-  stages.push({ name: 'volume', objective: volume, status: volStatus, seconds: round3(volSeconds) });
+  stages.push({ name: 'volume', objective: volume, status: proven(volProven, volStatus), seconds: round3(volSeconds) });
 
   // 3. Travel: LP bound over all arcs, then the MIP over the subset, started from the volume
   // solution and stopped once within the gap of that bound.
