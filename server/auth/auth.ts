@@ -44,6 +44,10 @@ export function createAuth(config: Config, db: Db, mailer: Mailer) {
     session: {
       expiresIn: 60 * 60 * 24 * 30,
       updateAge: 60 * 60 * 24,
+      // A signed cookie spares a session lookup per request. Safe here because every guarded
+      // request still reads the member's status and farms from the database (guards.ts), so a
+      // suspension takes effect at once; a session revoked elsewhere lapses within a minute.
+      cookieCache: { enabled: true, maxAge: 60 },
     },
     databaseHooks: {
       session: {
