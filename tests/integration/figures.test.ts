@@ -1,63 +1,27 @@
 // A season's figures on the demo cooperative, checked against sums computed here with plain
 // SQL: wood by species and variety, fill ratios, travel, strike rates (against @stdlib's beta
 // quantile), the value of plants raised; the member's narrower view; the CSV.
-import type { Server } from 'node:http';
 import betaQuantile from '@stdlib/stats-base-dists-beta-quantile';
 import { type SQL, sql } from 'drizzle-orm';
-import express from 'express';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Treatment } from '../../shared/domain.js';
 import type { SeasonFigures } from '../../shared/schemas/figures.js';
 import { TREATMENT_ODDS_RATIO } from '../../shared/strike-rate.js';
-import { createApp } from '../../server/app.js';
-import { errorHandler } from '../../server/lib/error-handler.js';
-import { figuresRouter } from '../../server/modules/figures/figures.router.js';
-import { strikeReportsRouter } from '../../server/modules/strike-reports/strike-reports.router.js';
-import { traceRouter } from '../../server/modules/trace/trace.router.js';
-import { freePort } from '../fixtures/free-port.js';
 import { Client } from '../fixtures/http.js';
 import { startTestApp, type TestApp } from '../fixtures/test-app.js';
 
 const DEMO_PASSWORD = 'heelwood-demo';
 
 let app: TestApp;
-let base: { url: string; close(): Promise<void> };
 const as: Record<'coordinator' | 'lead' | 'grower', Client> = {} as never;
 let seasonId: string;
 let figures: SeasonFigures;
 
-/**
- * Until server/app.ts mounts these routers, serve them in front of the real app (same
- * context, same database); once mounted, the real app answers and this does nothing.
- */
-async function withRouters(t: TestApp): Promise<{ url: string; close(): Promise<void> }> {
-  const probe = await fetch(`${t.url}/api/strike-rates`);
-  if (probe.status !== 404) return { url: t.url, close: async () => {} };
-  const outer = express();
-  outer.use('/api', (req, res, next) => (req.path.startsWith('/auth') ? next() : express.json({ limit: '1mb' })(req, res, next)));
-  outer.use('/api', strikeReportsRouter(t.ctx), traceRouter(t.ctx), figuresRouter(t.ctx));
-  outer.use(await createApp(t.ctx));
-  outer.use(errorHandler);
-  const port = await freePort();
-  const server: Server = await new Promise((resolve) => {
-    const s = outer.listen(port, '127.0.0.1', () => resolve(s));
-  });
-  return {
-    url: `http://localhost:${port}`,
-    close: async () => {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
-    },
-  };
-}
-
-/** Signs in on the real app (better-auth checks the origin) and talks to `base`. */
+/** A client signed in as one of the demo people. */
 async function signedIn(email: string): Promise<Client> {
-  const signer = new Client(app.url);
-  await signer.signIn(email, DEMO_PASSWORD);
-  const c = new Client(base.url);
-  (c as unknown as { cookies: Map<string, string> }).cookies = (signer as unknown as { cookies: Map<string, string> }).cookies;
+  const c = new Client(app.url);
+  await c.signIn(email, DEMO_PASSWORD);
   return c;
 }
 
@@ -69,14 +33,12 @@ const key = (s: string, v: string | null) => `${s}|${v ?? ''}`;
 
 beforeAll(async () => {
   app = await startTestApp({ seeded: true });
-  base = await withRouters(app);
   for (const who of ['coordinator', 'lead', 'grower'] as const) as[who] = await signedIn(`${who}@heelwood.test`);
   // The latest closed season: offers, requests, bundles, collections and strike reports.
   const [s] = await rows<{ id: string }>(sql`select id from seasons where stage = 'closed' order by collection_start desc limit 1`);
   seasonId = s.id;
 });
 afterAll(async () => {
-  await base?.close();
   await app?.close();
 });
 
@@ -262,7 +224,7 @@ describe("a member's figures", () => {
 
   it('answer 404 for an unknown season and 401 without sign-in', async () => {
     expect((await as.lead.get('/api/seasons/00000000-0000-4000-8000-000000000000/figures')).status).toBe(404);
-    expect((await new Client(base.url).get(`/api/seasons/${seasonId}/figures`)).status).toBe(401);
-    expect((await new Client(base.url).get(`/api/seasons/${seasonId}/figures.csv`)).status).toBe(401);
+    expect((await new Client(app.url).get(`/api/seasons/${seasonId}/figures`)).status).toBe(401);
+    expect((await new Client(app.url).get(`/api/seasons/${seasonId}/figures.csv`)).status).toBe(401);
   });
 });

@@ -1,14 +1,11 @@
 // Strike reports end to end on a copy of the demo cooperative: refusals that name the field
 // and write nothing, the Beta estimate checked against @stdlib and a worked example, the
 // grower's bundle list, plants raised from a bundle, and reminders that go out once.
-import type { Server } from 'node:http';
 import betaQuantile from '@stdlib/stats-base-dists-beta-quantile';
 import { and, count, eq, inArray, type SQL, sql } from 'drizzle-orm';
-import express from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { TREATMENT_ODDS_RATIO } from '../../shared/strike-rate.js';
 import type { Treatment } from '../../shared/domain.js';
-import { createApp } from '../../server/app.js';
 import {
   allocationRounds,
   auditLog,
@@ -26,13 +23,8 @@ import {
   woodOffers,
   woodRequests,
 } from '../../server/db/schema/index.js';
-import { errorHandler } from '../../server/lib/error-handler.js';
-import { figuresRouter } from '../../server/modules/figures/figures.router.js';
 import { nextPlantNumber } from '../../server/modules/mother-plants/mother-plants.repo.js';
 import { runReminders } from '../../server/modules/reminders/reminders.js';
-import { strikeReportsRouter } from '../../server/modules/strike-reports/strike-reports.router.js';
-import { traceRouter } from '../../server/modules/trace/trace.router.js';
-import { freePort } from '../fixtures/free-port.js';
 import { Client } from '../fixtures/http.js';
 import { waitForMail } from '../fixtures/mailbox.js';
 import { startTestApp, type TestApp } from '../fixtures/test-app.js';
@@ -40,40 +32,12 @@ import { startTestApp, type TestApp } from '../fixtures/test-app.js';
 const DEMO_PASSWORD = 'heelwood-demo';
 
 let app: TestApp;
-let base: { url: string; close(): Promise<void> };
 const as: Record<'coordinator' | 'lead' | 'grower', Client> = {} as never;
 
-/**
- * Until server/app.ts mounts these routers, serve them in front of the real app (same
- * context, same database); once mounted, the real app answers and this does nothing.
- */
-async function withRouters(t: TestApp): Promise<{ url: string; close(): Promise<void> }> {
-  const probe = await fetch(`${t.url}/api/strike-rates`);
-  if (probe.status !== 404) return { url: t.url, close: async () => {} };
-  const outer = express();
-  outer.use('/api', (req, res, next) => (req.path.startsWith('/auth') ? next() : express.json({ limit: '1mb' })(req, res, next)));
-  outer.use('/api', strikeReportsRouter(t.ctx), traceRouter(t.ctx), figuresRouter(t.ctx));
-  outer.use(await createApp(t.ctx));
-  outer.use(errorHandler);
-  const port = await freePort();
-  const server: Server = await new Promise((resolve) => {
-    const s = outer.listen(port, '127.0.0.1', () => resolve(s));
-  });
-  return {
-    url: `http://localhost:${port}`,
-    close: async () => {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
-    },
-  };
-}
-
-/** Signs in on the real app (better-auth checks the origin) and talks to `base`. */
+/** A client signed in as one of the demo people. */
 async function signedIn(email: string): Promise<Client> {
-  const signer = new Client(app.url);
-  await signer.signIn(email, DEMO_PASSWORD);
-  const c = new Client(base.url);
-  (c as unknown as { cookies: Map<string, string> }).cookies = (signer as unknown as { cookies: Map<string, string> }).cookies;
+  const c = new Client(app.url);
+  await c.signIn(email, DEMO_PASSWORD);
   return c;
 }
 
@@ -184,12 +148,10 @@ async function makeFixture() {
 
 beforeAll(async () => {
   app = await startTestApp({ seeded: true });
-  base = await withRouters(app);
   for (const who of ['coordinator', 'lead', 'grower'] as const) as[who] = await signedIn(`${who}@heelwood.test`);
   await makeFixture();
 });
 afterAll(async () => {
-  await base?.close();
   await app?.close();
 });
 
@@ -334,7 +296,7 @@ describe('a strike report', () => {
     const mismatch = await as.grower.get(`/api/strike-rates?speciesId=${other}&varietyId=${fx.varietyId}`);
     expect(mismatch.status).toBe(400);
     expect(mismatch.body.error.fields.varietyId).toBeDefined();
-    expect((await new Client(base.url).get('/api/strike-rates')).status).toBe(401);
+    expect((await new Client(app.url).get('/api/strike-rates')).status).toBe(401);
   });
 });
 

@@ -1,18 +1,10 @@
 // Trace on the demo cooperative's four-generation lineage, checked against sets walked step by
 // step with plain queries; who sees what; exposure after a finding that travels in wood; and
 // health notices that go out once per finding and grower.
-import type { Server } from 'node:http';
 import { and, count, eq, inArray, isNotNull, notInArray, sql, type SQL } from 'drizzle-orm';
-import express from 'express';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createApp } from '../../server/app.js';
 import { LINEAGE_ROOT_CODE } from '../../server/db/seed/demo-data.js';
 import { allocationRounds, auditLog, bundles, emailLog, mailbox, motherPlants, seasons, user } from '../../server/db/schema/index.js';
-import { errorHandler } from '../../server/lib/error-handler.js';
-import { figuresRouter } from '../../server/modules/figures/figures.router.js';
-import { strikeReportsRouter } from '../../server/modules/strike-reports/strike-reports.router.js';
-import { traceRouter } from '../../server/modules/trace/trace.router.js';
-import { freePort } from '../fixtures/free-port.js';
 import { Client } from '../fixtures/http.js';
 import { waitForMail } from '../fixtures/mailbox.js';
 import { startTestApp, type TestApp } from '../fixtures/test-app.js';
@@ -20,40 +12,12 @@ import { startTestApp, type TestApp } from '../fixtures/test-app.js';
 const DEMO_PASSWORD = 'heelwood-demo';
 
 let app: TestApp;
-let base: { url: string; close(): Promise<void> };
 const as: Record<'coordinator' | 'lead' | 'hand' | 'grower', Client> = {} as never;
 
-/**
- * Until server/app.ts mounts these routers, serve them in front of the real app (same
- * context, same database); once mounted, the real app answers and this does nothing.
- */
-async function withRouters(t: TestApp): Promise<{ url: string; close(): Promise<void> }> {
-  const probe = await fetch(`${t.url}/api/strike-rates`);
-  if (probe.status !== 404) return { url: t.url, close: async () => {} };
-  const outer = express();
-  outer.use('/api', (req, res, next) => (req.path.startsWith('/auth') ? next() : express.json({ limit: '1mb' })(req, res, next)));
-  outer.use('/api', strikeReportsRouter(t.ctx), traceRouter(t.ctx), figuresRouter(t.ctx));
-  outer.use(await createApp(t.ctx));
-  outer.use(errorHandler);
-  const port = await freePort();
-  const server: Server = await new Promise((resolve) => {
-    const s = outer.listen(port, '127.0.0.1', () => resolve(s));
-  });
-  return {
-    url: `http://localhost:${port}`,
-    close: async () => {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
-    },
-  };
-}
-
-/** Signs in on the real app (better-auth checks the origin) and talks to `base`. */
+/** A client signed in as one of the demo people. */
 async function signedIn(email: string): Promise<Client> {
-  const signer = new Client(app.url);
-  await signer.signIn(email, DEMO_PASSWORD);
-  const c = new Client(base.url);
-  (c as unknown as { cookies: Map<string, string> }).cookies = (signer as unknown as { cookies: Map<string, string> }).cookies;
+  const c = new Client(app.url);
+  await c.signIn(email, DEMO_PASSWORD);
   return c;
 }
 
@@ -103,12 +67,10 @@ let coordinatorTrace: { plant: Node; ancestors: Node[]; descendants: Node[]; bun
 
 beforeAll(async () => {
   app = await startTestApp({ seeded: true });
-  base = await withRouters(app);
   for (const who of ['coordinator', 'lead', 'hand', 'grower'] as const) as[who] = await signedIn(`${who}@heelwood.test`);
   root = await plantByCode(LINEAGE_ROOT_CODE);
 });
 afterAll(async () => {
-  await base?.close();
   await app?.close();
 });
 
@@ -194,7 +156,7 @@ describe('the trace of a plant', () => {
     // Another farm's plant that is not clean is not found for him.
     const [held] = await app.ctx.db.select().from(motherPlants).where(eq(motherPlants.healthStatus, 'hold')).limit(1);
     expect((await as.grower.get(`/api/mother-plants/${held.id}/trace`)).status).toBe(404);
-    expect((await new Client(base.url).get(`/api/mother-plants/${root.id}/trace`)).status).toBe(401);
+    expect((await new Client(app.url).get(`/api/mother-plants/${root.id}/trace`)).status).toBe(401);
   });
 });
 
