@@ -10,6 +10,7 @@
 // - Outlines: the farm lead of that farm or a coordinator replaces the farm's drawing.
 import { and, asc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
 import type { HealthStatus } from '../../../shared/domain.js';
+import type { MapFeatures, MapPlant, OutlineCollection, OutlineKind, UnplacedPlant } from '../../../shared/schemas/map.js';
 import type { PlantListFilters } from '../../../shared/schemas/register.js';
 import type { Actor } from '../../auth/guards.js';
 import { farmRoleOf } from '../../auth/guards.js';
@@ -20,45 +21,7 @@ import { writeAudit } from '../audit/audit.repo.js';
 import { plantWhere, type Visibility } from '../mother-plants/mother-plants.repo.js';
 import { approximate, isCoordinator, mayEdit, seesFull } from '../mother-plants/plant-access.js';
 
-export type OutlineKind = 'outline' | 'bed' | 'row';
-export type Position = [number, number];
-export type OutlineFeature = {
-  type: 'Feature';
-  properties: { kind: OutlineKind; label?: string };
-  geometry: { type: 'Polygon'; coordinates: Position[][] } | { type: 'LineString'; coordinates: Position[] };
-};
-export type OutlineCollection = { type: 'FeatureCollection'; features: OutlineFeature[] };
-
-export type MapFarm = {
-  id: string;
-  code: string;
-  name: string;
-  lat: number;
-  lon: number;
-  outline: OutlineCollection | null;
-  /** The caller may redraw this farm's outline, beds and rows (its lead, or a coordinator). */
-  canEditOutline: boolean;
-  /** The caller may place and move this farm's plants (its people, or a coordinator). */
-  canPlace: boolean;
-};
-
-export type MapPlant = {
-  id: string;
-  code: string;
-  farmId: string;
-  lat: number;
-  lon: number;
-  healthStatus: HealthStatus;
-  speciesName: string;
-  varietyName: string | null;
-  /** True when the position is the real one and the caller may move the plant. */
-  full: boolean;
-};
-
-/** A plant of the caller's own farms that has no position yet (to place on the map). */
-export type UnplacedPlant = Omit<MapPlant, 'lat' | 'lon'>;
-
-export type MapFeatures = { farms: MapFarm[]; plants: MapPlant[]; unplaced: UnplacedPlant[] };
+export type { OutlineCollection, OutlineFeature, OutlineKind, MapFarm, MapFeatures, MapPlant, Position, UnplacedPlant } from '../../../shared/schemas/map.js';
 
 export type MapFilters = Pick<PlantListFilters, 'speciesId' | 'varietyId' | 'status' | 'farmId'>;
 

@@ -1,45 +1,7 @@
-// What the map's endpoints answer. The server's shapes live in server/modules/map/map.service.ts;
-// the client may not import server code, so the same shapes are written out here.
+// What the map's endpoints answer: the shapes are shared with the server (shared/schemas/map.ts).
 import type { HealthStatus } from '../../../../shared/domain';
 
-export type OutlineKind = 'outline' | 'bed' | 'row';
-export type Position = [number, number];
-
-export type OutlineFeature = {
-  type: 'Feature';
-  properties: { kind: OutlineKind; label?: string };
-  geometry: { type: 'Polygon'; coordinates: Position[][] } | { type: 'LineString'; coordinates: Position[] };
-};
-
-export type OutlineCollection = { type: 'FeatureCollection'; features: OutlineFeature[] };
-
-export type MapFarm = {
-  id: string;
-  code: string;
-  name: string;
-  lat: number;
-  lon: number;
-  outline: OutlineCollection | null;
-  canEditOutline: boolean;
-  canPlace: boolean;
-};
-
-export type MapPlant = {
-  id: string;
-  code: string;
-  farmId: string;
-  lat: number;
-  lon: number;
-  healthStatus: HealthStatus;
-  speciesName: string;
-  varietyName: string | null;
-  /** True when the position is the real one and the caller may move the plant. */
-  full: boolean;
-};
-
-export type UnplacedPlant = Omit<MapPlant, 'lat' | 'lon'>;
-
-export type MapFeatures = { farms: MapFarm[]; plants: MapPlant[]; unplaced: UnplacedPlant[] };
+export type { OutlineCollection, OutlineFeature, OutlineKind, MapFarm, MapFeatures, MapPlant, Position, UnplacedPlant } from '../../../../shared/schemas/map';
 
 export type MapFilters = {
   speciesId?: string;
