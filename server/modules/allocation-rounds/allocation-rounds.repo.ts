@@ -15,8 +15,8 @@ import {
   woodRequests,
 } from '../../db/schema/index.js';
 
-/** Offers of the season with the plant, farm and how much is not yet reserved. */
-export function seasonOffers(db: DbOrTx, seasonId: string) {
+/** Offers of the season with the plant, farm and how much is not yet reserved (or just one). */
+export function seasonOffers(db: DbOrTx, seasonId: string, offerId?: string) {
   return db
     .select({
       id: woodOffers.id,
@@ -35,12 +35,12 @@ export function seasonOffers(db: DbOrTx, seasonId: string) {
     .from(woodOffers)
     .innerJoin(motherPlants, eq(motherPlants.id, woodOffers.plantId))
     .innerJoin(farms, eq(farms.id, motherPlants.farmId))
-    .where(and(eq(woodOffers.seasonId, seasonId), isNull(woodOffers.withdrawnAt)))
+    .where(and(eq(woodOffers.seasonId, seasonId), isNull(woodOffers.withdrawnAt), offerId ? eq(woodOffers.id, offerId) : undefined))
     .orderBy(asc(woodOffers.id));
 }
 
-/** Lines of filed requests, with the grower's destination and distance limit. */
-export function seasonLines(db: DbOrTx, seasonId: string) {
+/** Lines of filed requests, with the grower's destination and distance limit (or just one). */
+export function seasonLines(db: DbOrTx, seasonId: string, lineId?: string) {
   return db
     .select({
       id: requestLines.id,
@@ -56,7 +56,7 @@ export function seasonLines(db: DbOrTx, seasonId: string) {
     })
     .from(requestLines)
     .innerJoin(woodRequests, eq(woodRequests.id, requestLines.requestId))
-    .where(and(eq(woodRequests.seasonId, seasonId), eq(woodRequests.status, 'filed')))
+    .where(and(eq(woodRequests.seasonId, seasonId), eq(woodRequests.status, 'filed'), lineId ? eq(requestLines.id, lineId) : undefined))
     .orderBy(asc(requestLines.id));
 }
 

@@ -220,9 +220,9 @@ async function assertEditable(tx: DbOrTx, roundId: string) {
 /** Live checks for a bundle: compatibility, health, distance, and the offer's capacity. */
 async function checkBundle(tx: DbOrTx, round: { id: string; seasonId: string }, offerId: string, lineId: string, cuttings: number, exceptBundleId?: string) {
   const season = await seasonOf(tx, round.seasonId);
-  const [offer] = (await seasonOffers(tx, round.seasonId)).filter((o) => o.id === offerId);
+  const [offer] = await seasonOffers(tx, round.seasonId, offerId);
   if (!offer) throw badRequest('That offer is not part of this season (or was withdrawn).', { offerId: 'not offered this season' });
-  const [line] = (await seasonLines(tx, round.seasonId)).filter((l) => l.id === lineId);
+  const [line] = await seasonLines(tx, round.seasonId, lineId);
   if (!line) throw badRequest('That request line is not filed in this season.', { lineId: 'not a filed line' });
   if (!mayGiveWood(offer.healthStatus, offer.lastInspectedOn, season.lookbackMonths, new Date())) {
     throw badRequest(`Plant ${offer.plantCode} may not give wood (it is ${offer.healthStatus}, or not inspected within the look-back).`, { offerId: 'plant not clean' });
