@@ -153,3 +153,37 @@ export async function updatePlant(db: DbOrTx, id: string, patch: Partial<typeof 
     .returning();
   return row;
 }
+
+// Bulk insert for imports. The rows travel as one JSON parameter: a multi-row VALUES list with
+// thousands of bound parameters measured three times slower on PGlite. Columns are listed so
+// that any column left out takes its default.
+export type NewPlant = typeof motherPlants.$inferInsert & { id: string };
+
+export async function insertPlants(tx: DbOrTx, values: NewPlant[]) {
+  const rows = values.map((v) => ({
+    id: v.id,
+    code: v.code,
+    farm_id: v.farmId,
+    species_id: v.speciesId,
+    variety_id: v.varietyId ?? null,
+    planting_year: v.plantingYear,
+    lat: v.lat ?? null,
+    lon: v.lon ?? null,
+    bed_row: v.bedRow ?? '',
+    role: v.role,
+    provenance: v.provenance,
+    parent_plant_id: v.parentPlantId ?? null,
+    supplier: v.supplier ?? null,
+    health_status: v.healthStatus ?? 'clean',
+    last_inspected_on: v.lastInspectedOn ?? null,
+    notes: v.notes ?? '',
+    created_by: v.createdBy ?? null,
+    retired_at: v.retiredAt ?? null,
+  }));
+  await tx.execute(sql`
+    insert into mother_plants (id, code, farm_id, species_id, variety_id, planting_year, lat, lon, bed_row, role,
+      provenance, parent_plant_id, supplier, health_status, last_inspected_on, notes, created_by, retired_at)
+    select id, code, farm_id, species_id, variety_id, planting_year, lat, lon, bed_row, role,
+      provenance, parent_plant_id, supplier, health_status, last_inspected_on, notes, created_by, retired_at
+    from json_populate_recordset(null::mother_plants, ${JSON.stringify(rows)}::json)`);
+}
