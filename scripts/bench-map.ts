@@ -47,11 +47,25 @@ async function timeLoad(page: Page, url: string, expected: number): Promise<numb
   await page.goto('about:blank');
   await page.goto(url);
   await page.locator(`[data-testid="map-frame"][data-plants-drawn="${expected}"]`).waitFor({ timeout: 60_000 });
-  return page.evaluate((mark) => {
-    const entries = performance.getEntriesByName(mark);
-    return entries[entries.length - 1].startTime;
-  }, MARK);
+  const t = await page.evaluate(`(() => {
+    const entries = performance.getEntriesByName(${JSON.stringify(MARK)});
+    const res = performance.getEntriesByType('resource');
+    const end = (part) => Math.round(Math.max(0, ...res.filter((r) => r.name.includes(part)).map((r) => r.responseEnd)));
+    const start = (part) => Math.round(Math.min(1e9, ...res.filter((r) => r.name.includes(part)).map((r) => r.startTime)));
+    const nav = performance.getEntriesByType('navigation')[0];
+    return {
+      drawn: entries[entries.length - 1].startTime,
+      domReady: Math.round(nav.domContentLoadedEventEnd),
+      featuresAsked: start('/api/map/features'),
+      featuresDone: end('/api/map/features'),
+      mapCodeDone: end('/assets/map-route-'),
+    };
+  })()`) as { drawn: number } & Record<string, number>;
+  timelines.push(t);
+  return t.drawn;
 }
+/** Where each timed load spent its time (ms from navigation start), for the breakdown line. */
+const timelines: Record<string, number>[] = [];
 
 /** Drags the map back and forth while recording frame times with requestAnimationFrame. */
 async function panFrames(page: Page): Promise<number> {
@@ -177,6 +191,8 @@ async function main() {
 
     console.log(`plants: ${total} in the register; ${SMALL} on the bench farm; ${RUNS} timed loads each after a warm-up`);
     console.log(`drawMs runs ${big.map((x) => x.toFixed(0)).join(', ')}; drawMs100 runs ${small.map((x) => x.toFixed(0)).join(', ')}`);
+    const keys = Object.keys(timelines[0]);
+    console.log(`timeline medians (ms from navigation): ${keys.map((k) => `${k} ${median(timelines.slice(1).map((t) => t[k])).toFixed(0)}`).join(', ')}`);
     console.log(`GET /api/map/features (${total} plants): median ${median(api).toFixed(0)} ms; markers and clusters in the DOM at farm zoom: ${visible}`);
     if (foreign.length) console.log(`requests to other hosts: ${foreign.join(', ')}`);
     console.log(

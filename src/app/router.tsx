@@ -1,5 +1,6 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { Loading } from '../components/ui/loading';
+import { mapLoader } from '../features/map/api/map-loader';
 import { patterns } from './paths';
 import { HomeRoute } from './routes/home-route';
 import { NotFoundRoute } from './routes/not-found-route';
@@ -135,10 +136,9 @@ const routes: RouteObject[] = [
           {
             path: patterns.map,
             errorElement: <RouteError />,
-            lazy: async () => {
-              const m = await import('./routes/map-route');
-              return { Component: m.MapRoute, loader: m.mapLoader };
-            },
+            // Static, so the plants are asked for while the map's code is still downloading.
+            loader: mapLoader,
+            lazy: async () => ({ Component: (await import('./routes/map-route')).MapRoute }),
           },
           {
             path: patterns.seasonRounds,
