@@ -175,7 +175,11 @@ export async function retirePlant(db: Db, a: Actor, id: string, reason: string) 
   return db.transaction(async (tx) => {
     const before = await findPlant(tx, id);
     if (!before) throw notFound('That plant');
-    if (!mayRetire(a, before.farmId)) throw forbidden('Only the farm lead or a coordinator retires a plant.');
+    if (!mayRetire(a, before.farmId)) {
+      // As for editing: a plant the caller may not see at all is "not found", not "forbidden".
+      if (!seesFull(a, before.farmId) && before.healthStatus !== 'clean') throw notFound('That plant');
+      throw forbidden('Only the farm lead or a coordinator retires a plant.');
+    }
     if (before.healthStatus === 'retired') throw conflict('The plant is already retired.');
     const after = await updatePlant(tx, id, { healthStatus: 'retired', retiredAt: new Date() });
     await writeAudit(tx, { actorId: a.id, entity: 'mother_plant', entityId: id, action: 'status', reason, before: { healthStatus: before.healthStatus }, after: { healthStatus: 'retired' } });

@@ -13,7 +13,7 @@ import type { Db, DbOrTx } from '../../db/client.js';
 import { farms, motherPlants, pickupWindows, species, varieties, woodOffers } from '../../db/schema/index.js';
 import { badRequest, conflict, forbidden, notFound } from '../../lib/http-error.js';
 import { getSetting } from '../cooperative/cooperative.repo.js';
-import { isCoordinator } from '../mother-plants/plant-access.js';
+import { isCoordinator, seesFull } from '../mother-plants/plant-access.js';
 import { seasonRow } from '../seasons/seasons.repo.js';
 
 export async function roleCaps(db: DbOrTx): Promise<Record<PlantRole, number>> {
@@ -95,7 +95,8 @@ export async function setOffer(db: Db, a: Actor, seasonId: string, plantId: stri
       .from(motherPlants)
       .innerJoin(species, eq(species.id, motherPlants.speciesId))
       .where(eq(motherPlants.id, plantId));
-    if (!plant) throw notFound('That plant');
+    // A plant the caller may not see at all (another farm's, not clean) is "not found".
+    if (!plant || (!seesFull(a, plant.p.farmId) && plant.p.healthStatus !== 'clean')) throw notFound('That plant');
     assertFarmWorker(a, plant.p.farmId);
     if (!STAGE_RULES[season.stage].offers) {
       throw conflict(`Offers are closed: the season is ${season.stage.replace('_', ' ')}.`, { seasonId: STAGE_RULES[season.stage].text });
@@ -147,12 +148,12 @@ export async function setOffer(db: Db, a: Actor, seasonId: string, plantId: stri
 export async function withdrawOffer(db: Db, a: Actor, seasonId: string, plantId: string) {
   await db.transaction(async (tx) => {
     const [offer] = await tx
-      .select({ o: woodOffers, farmId: motherPlants.farmId })
+      .select({ o: woodOffers, farmId: motherPlants.farmId, healthStatus: motherPlants.healthStatus })
       .from(woodOffers)
       .innerJoin(motherPlants, eq(motherPlants.id, woodOffers.plantId))
       .where(and(eq(woodOffers.seasonId, seasonId), eq(woodOffers.plantId, plantId)))
       .for('update');
-    if (!offer) throw notFound('That offer');
+    if (!offer || (!seesFull(a, offer.farmId) && offer.healthStatus !== 'clean')) throw notFound('That offer');
     assertFarmWorker(a, offer.farmId);
     if (offer.o.reserved > 0) throw conflict(`${offer.o.reserved} cuttings are already reserved; ask the coordinator to change the bundles first.`);
     await tx.delete(woodOffers).where(eq(woodOffers.id, offer.o.id));
