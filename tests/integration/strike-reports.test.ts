@@ -439,6 +439,8 @@ describe('strike-report reminders', () => {
     const mail = await waitForMail(app, 'grower@heelwood.test');
     expect(mail.subject).toMatch(/How did bundle B\d\d-\d{4} root\?/);
     expect(mail.textBody).toMatch(/how many you stuck and how many rooted/);
+    // The link lands on the grower's collected bundles, where the report is filed.
+    expect(mail.textBody).toContain(`${app.ctx.config.publicUrl.replace(/\/$/, '')}/my-bundles`);
     const until = Date.now() + 10_000;
     while ((await app.ctx.db.select({ n: count() }).from(mailbox))[0].n < mailsBefore + expected.length && Date.now() < until) await new Promise((r) => setTimeout(r, 100));
     const mailsAfterFirst = (await app.ctx.db.select({ n: count() }).from(mailbox))[0].n;

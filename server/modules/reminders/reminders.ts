@@ -76,7 +76,7 @@ function reminderMail(c: Candidate, collectedOn: string, dueOn: string, publicUr
         : 'The growing season is under way, so the cuttings that rooted are in leaf: now is a good time to count them.',
       '',
       'Please tell the cooperative how many you stuck and how many rooted, and how they were treated. Every report makes the strike rates the planner uses more honest for everyone.',
-      `Report it in Heelwood under your collected bundles: ${publicUrl}`,
+      `Report it in Heelwood under your collected bundles: ${publicUrl.replace(/\/$/, '')}/my-bundles`,
       '',
       'If you did not stick the cuttings, a report of what happened still helps the coordinator.',
       `(Reminder for the report due on ${dueOn}; you get it once for this bundle.)`,
