@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { toNodeHandler } from 'better-auth/node';
 import express, { type Express } from 'express';
+import { CLIENT_IP_HEADER } from './auth/auth.js';
 import { authFormsRouter } from './auth/auth.router.js';
 import type { AppContext } from './context.js';
 import { errorHandler } from './lib/error-handler.js';
@@ -33,6 +34,8 @@ import { plantsCsvRouter } from './modules/mother-plants/plants-csv.router.js';
 export async function createApp(ctx: AppContext): Promise<Express> {
   const app = express();
   app.disable('x-powered-by');
+  // Which proxies may say who the client is (X-Forwarded-For); off unless TRUST_PROXY is set.
+  app.set('trust proxy', ctx.config.trustProxy);
   if (ctx.config.logRequests) {
     app.use((req, res, next) => {
       const t = performance.now();
@@ -48,6 +51,12 @@ export async function createApp(ctx: AppContext): Promise<Express> {
     res.json({ ok: true });
   });
 
+  // better-auth rate-limits by client address: hand it Express's view of it, never the
+  // caller's own header.
+  app.use('/api/auth', (req, _res, next) => {
+    req.headers[CLIENT_IP_HEADER] = req.ip ?? req.socket.remoteAddress ?? '';
+    next();
+  });
   // better-auth reads its own request bodies: mount it before express.json().
   app.use('/api/auth', authFormsRouter(ctx));
   app.all('/api/auth/*splat', toNodeHandler(ctx.auth));

@@ -3,6 +3,7 @@
 import path from 'node:path';
 import type { Config } from './config.js';
 import { type Database, type Db, openDatabase } from './db/client.js';
+import { lockDataDir } from './db/data-dir-lock.js';
 import { seedIfEmpty, type SeedOutcome } from './db/first-start.js';
 import { type Auth, createAuth } from './auth/auth.js';
 import { type MailCatcher, startMailCatcher } from './modules/mail/mail-catcher.js';
@@ -32,13 +33,25 @@ export type ContextOptions = {
 };
 
 export async function createContext(config: Config, opts: ContextOptions = {}): Promise<AppContext> {
-  const database = await openDatabase({
-    databaseUrl: config.databaseUrl,
-    dataDir: opts.inMemory || opts.loadDataDir ? undefined : path.join(config.dataDir, 'pglite'),
-    loadDataDir: opts.loadDataDir,
-    migrationsFolder: config.migrationsFolder,
-  });
-  const closers: Array<() => Promise<void> | void> = [() => database.close()];
+  const onDisk = !config.databaseUrl && !opts.inMemory && !opts.loadDataDir;
+  // PGlite has no lock of its own: one process at a time on DATA_DIR/pglite (data-dir-lock.ts).
+  const lock = onDisk ? lockDataDir(config.dataDir, 'the Heelwood server') : null;
+  if (lock?.tookOverFrom) {
+    console.warn(`[heelwood] ${lock.tookOverFrom.holder} (process ${lock.tookOverFrom.pid}) stopped without closing the database; it is recovered on opening.`);
+  }
+  let database: Database;
+  try {
+    database = await openDatabase({
+      databaseUrl: config.databaseUrl,
+      dataDir: onDisk ? path.join(config.dataDir, 'pglite') : undefined,
+      loadDataDir: opts.loadDataDir,
+      migrationsFolder: config.migrationsFolder,
+    });
+  } catch (err) {
+    lock?.release();
+    throw err;
+  }
+  const closers: Array<() => Promise<void> | void> = [() => database.close(), () => lock?.release()];
   try {
     await database.migrate();
     const seed = config.seedDemo ? await seedIfEmpty(database.db) : ({ seeded: false, reason: 'SEED_DEMO is off' } as const);

@@ -4,6 +4,7 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from './app.js';
 import { ConfigError, loadConfig } from './config.js';
 import { createContext } from './context.js';
+import { DataDirBusyError } from './db/data-dir-lock.js';
 import { TileSourceError } from './modules/map/tiles.sources.js';
 
 const DEMO_SIGN_INS = [
@@ -64,7 +65,7 @@ async function main() {
 }
 
 main().catch((err) => {
-  if (err instanceof TileSourceError) {
+  if (err instanceof TileSourceError || err instanceof DataDirBusyError) {
     console.error(`Heelwood cannot start: ${err.message}`);
     process.exit(1);
   }

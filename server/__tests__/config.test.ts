@@ -56,4 +56,43 @@ describe('loadConfig', () => {
     expect(c.loopbackOnly).toBe(false);
     expect(c.authSecret).toBe('x'.repeat(40));
   });
+
+  it('refuses the approval test hook and RATE_LIMIT=off in production; the hook works under test', () => {
+    const secure = {
+      NODE_ENV: 'production',
+      PUBLIC_URL: 'https://heelwood.example.org',
+      SEED_DEMO: 'false',
+      SMTP_URL: 'smtps://u:p@mail.example.org:465',
+      BETTER_AUTH_SECRET: 'x'.repeat(40),
+      DATA_DIR: tmp(),
+    };
+    try {
+      loadConfig({ ...secure, HEELWOOD_TEST_APPROVAL_DELAY_MS: '5000', RATE_LIMIT: 'off' });
+      expect.unreachable();
+    } catch (e) {
+      const problems = (e as ConfigError).problems.join('\n');
+      expect(problems).toMatch(/HEELWOOD_TEST_APPROVAL_DELAY_MS is a test hook/);
+      expect(problems).toMatch(/RATE_LIMIT is off/);
+    }
+    expect(loadConfig(secure).rateLimit).toBe(true);
+    expect(loadConfig(secure).testApprovalDelayMs).toBe(0);
+    const test = loadConfig({ NODE_ENV: 'test', DATA_DIR: tmp(), HEELWOOD_TEST_APPROVAL_DELAY_MS: '250' });
+    expect(test.testApprovalDelayMs).toBe(250);
+    expect(test.rateLimit).toBe(false);
+    expect(loadConfig({ NODE_ENV: 'test', DATA_DIR: tmp(), RATE_LIMIT: 'on' }).rateLimit).toBe(true);
+  });
+
+  it('reads TRUST_PROXY as hops or a list of proxies, and names a bad one', () => {
+    expect(loadConfig({ DATA_DIR: tmp() }).trustProxy).toBe(false);
+    expect(loadConfig({ DATA_DIR: tmp(), TRUST_PROXY: '1' }).trustProxy).toBe(1);
+    expect(loadConfig({ DATA_DIR: tmp(), TRUST_PROXY: 'loopback, 10.0.0.0/8,::1' }).trustProxy).toEqual(['loopback', '10.0.0.0/8', '::1']);
+    for (const bad of ['everyone', '10.0.0.0/33', 'true']) {
+      try {
+        loadConfig({ DATA_DIR: tmp(), TRUST_PROXY: bad });
+        expect.unreachable();
+      } catch (e) {
+        expect((e as ConfigError).problems.join('\n')).toMatch(/TRUST_PROXY: use false, a number of proxy hops/);
+      }
+    }
+  });
 });

@@ -2,9 +2,8 @@
 // same zod schemas the forms use, so a bad field is named, and better-auth's refusals are
 // answered in the API's one error shape (with `message` and `code` also at the top level,
 // where better-auth's own client reads them).
-import { APIError } from 'better-auth/api';
 import { fromNodeHeaders } from 'better-auth/node';
-import express, { Router, type Response } from 'express';
+import express, { type Request, Router, type Response } from 'express';
 import { signInSchema, signUpSchema } from '../../shared/schemas/members.js';
 import type { AppContext } from '../context.js';
 import { fromZod, HttpError } from '../lib/http-error.js';
@@ -41,18 +40,27 @@ async function relay(res: Response, response: globalThis.Response) {
     res.send(Buffer.from(await response.arrayBuffer()));
     return;
   }
+  if (response.status === 429) {
+    const wait = response.headers.get('x-retry-after');
+    if (wait) res.setHeader('Retry-After', wait);
+    return sendError(res, new HttpError(429, 'rate_limited', `Too many attempts from this address. Wait ${wait ?? 'a minute'} seconds and try again.`));
+  }
   const body = (await response.json().catch(() => ({}))) as { code?: string; message?: string };
   const known = body.code ? REFUSALS[body.code] : undefined;
   sendError(res, known ? known(body.message ?? '') : new HttpError(response.status, (body.code ?? 'auth_error').toLowerCase(), body.message ?? 'Sign-in failed.'));
 }
 
-function fromApiError(err: unknown): globalThis.Response | undefined {
-  if (!(err instanceof APIError)) return undefined;
-  const status = typeof err.statusCode === 'number' ? err.statusCode : 400;
-  return new Response(JSON.stringify(err.body ?? { message: err.message }), {
-    status,
-    headers: { 'content-type': 'application/json' },
-  });
+/**
+ * The checked body goes to better-auth's own request handler, not to `auth.api.*`: only the
+ * handler applies the rate limits and origin checks configured in auth.ts.
+ */
+function viaHandler(ctx: AppContext, req: Request, body: unknown): Promise<globalThis.Response> {
+  const headers = fromNodeHeaders(req.headers);
+  headers.delete('content-length');
+  headers.delete('transfer-encoding');
+  headers.set('content-type', 'application/json');
+  const url = `${req.protocol}://${req.get('host') ?? 'localhost'}${req.originalUrl}`;
+  return ctx.auth.handler(new globalThis.Request(url, { method: 'POST', headers, body: JSON.stringify(body) }));
 }
 
 export function authFormsRouter(ctx: AppContext): Router {
@@ -62,20 +70,14 @@ export function authFormsRouter(ctx: AppContext): Router {
   r.post('/sign-up/email', async (req, res) => {
     const parsed = signUpSchema.safeParse(req.body ?? {});
     if (!parsed.success) return sendError(res, fromZod(parsed.error, 'form'));
-    const response = await ctx.auth.api
-      .signUpEmail({ body: parsed.data, headers: fromNodeHeaders(req.headers), asResponse: true })
-      .catch((e: unknown) => fromApiError(e) ?? Promise.reject(e));
-    await relay(res, response);
+    await relay(res, await viaHandler(ctx, req, parsed.data));
   });
 
   r.post('/sign-in/email', async (req, res) => {
     const parsed = signInSchema.safeParse(req.body ?? {});
     if (!parsed.success) return sendError(res, fromZod(parsed.error, 'form'));
     const body = { ...parsed.data, rememberMe: (req.body as { rememberMe?: boolean }).rememberMe !== false };
-    const response = await ctx.auth.api
-      .signInEmail({ body, headers: fromNodeHeaders(req.headers), asResponse: true })
-      .catch((e: unknown) => fromApiError(e) ?? Promise.reject(e));
-    await relay(res, response);
+    await relay(res, await viaHandler(ctx, req, body));
   });
   return r;
 }

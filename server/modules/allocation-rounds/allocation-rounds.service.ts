@@ -294,6 +294,15 @@ export async function removeBundle(db: Db, a: Actor, roundId: string, bundleId: 
 
 // Approval -----------------------------------------------------------------------------
 
+/**
+ * Test hook (HEELWOOD_TEST_APPROVAL_DELAY_MS, refused in production by config.ts): holds the
+ * approval open after its first writes so a test can kill the server mid-transaction.
+ */
+async function testPause(roundId: string, ms: number) {
+  console.log(`[heelwood] test hook: approval of round ${roundId} paused inside its transaction for ${ms} ms`);
+  await new Promise((r) => setTimeout(r, ms));
+}
+
 export async function approveRound(ctx: AppContext, a: Actor, roundId: string, now = new Date()) {
   await ctx.db.transaction(async (tx) => {
     const round = await roundRow(tx, roundId, true);
@@ -337,6 +346,7 @@ export async function approveRound(ctx: AppContext, a: Actor, roundId: string, n
         .update(bundles)
         .set({ code: `${prefix}${String(seq).padStart(4, '0')}`, status: 'reserved', pickupWindowId: w?.id ?? null })
         .where(eq(bundles.id, b.id));
+      if (seq === last + 1 && ctx.config.testApprovalDelayMs > 0) await testPause(roundId, ctx.config.testApprovalDelayMs);
     }
     await tx.update(allocationRounds).set({ status: 'approved', approvedBy: a.id, approvedAt: new Date() }).where(eq(allocationRounds.id, roundId));
     await writeAudit(tx, { actorId: a.id, entity: 'allocation_round', entityId: roundId, action: 'approve', after: { bundles: live.length, cuttings: live.reduce((s, b) => s + b.cuttings, 0) } });
