@@ -20,6 +20,7 @@ export const NAV_ITEMS: NavItem[] = [
   { label: 'Map', to: patterns.map, access: 'active' },
   { label: 'Species', to: patterns.species, access: 'active' },
   { label: 'Seasons', to: patterns.seasons, access: 'active' },
+  { label: 'Figures', to: patterns.figures, access: 'active' },
   { label: 'Planner', to: patterns.planner, access: 'active' },
   { label: 'Health', to: patterns.health, access: 'coordinator' },
   { label: 'Members', to: patterns.members, access: 'coordinator' },

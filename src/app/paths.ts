@@ -33,10 +33,14 @@ export const patterns = {
   plantLabels: '/plants/labels',
   plant: '/plants/:id',
   plantEdit: '/plants/:id/edit',
+  plantTrace: '/plants/:id/trace',
+  plantExposure: '/plants/:id/exposure',
   species: '/species',
   health: '/health',
   seasons: '/seasons',
   season: '/seasons/:seasonId',
+  figures: '/figures',
+  seasonFigures: '/figures/:seasonId',
   seasonOffers: '/seasons/:seasonId/offers',
   seasonRequest: '/seasons/:seasonId/request',
   seasonBoard: '/seasons/:seasonId/board',
@@ -47,6 +51,8 @@ export const patterns = {
   seasonPickups: '/seasons/:seasonId/pickups',
   seasonCollections: '/seasons/:seasonId/collections',
   bundleLabels: '/seasons/:seasonId/collections/labels',
+  myBundles: '/my-bundles',
+  strikeRates: '/strike-rates',
 } as const;
 
 /** A request line handed to the request page (from the planner), read back by that page. */
@@ -64,6 +70,9 @@ export type PlannerSearch = { lengthM?: number; speciesId?: string; varietyId?: 
 
 /** The map's filters, kept in its address so a filtered map can be shared or bookmarked. */
 export type MapSearch = { speciesId?: string; varietyId?: string; status?: string; farmId?: string };
+
+/** The strike-rate table's filters, kept in its address. */
+export type StrikeRatesSearch = { speciesId?: string; varietyId?: string | null; treatment?: string };
 
 export type MembersSearch = { status?: UserStatus; q?: string; page?: number };
 
@@ -85,10 +94,18 @@ export const paths = {
   plantLabels: (search?: URLSearchParams | string) => withSearch(patterns.plantLabels, search),
   plant: (id: string) => `/plants/${encodeURIComponent(id)}`,
   plantEdit: (id: string) => `/plants/${encodeURIComponent(id)}/edit`,
+  /** A plant's ancestors and descendants, and the bundles between them. */
+  plantTrace: (id: string) => `/plants/${encodeURIComponent(id)}/trace`,
+  /** Coordinator: what may carry a finding that travels in wood, and the notice to its growers. */
+  plantExposure: (id: string, findingId?: string) => withQuery(`/plants/${encodeURIComponent(id)}/exposure`, { findingId }),
   species: () => patterns.species,
   health: () => patterns.health,
   seasons: () => patterns.seasons,
   season: (seasonId: string) => `/seasons/${encodeURIComponent(seasonId)}`,
+  /** A season's figures (the coordinator's: the cooperative's; a member's: their own). */
+  seasonFigures: (seasonId: string) => `/figures/${encodeURIComponent(seasonId)}`,
+  /** Opens the figures of the latest season that has any. */
+  figures: () => patterns.figures,
   /** A farm's wood offers and pickup windows; `hash` 'pickup-windows' jumps to the windows. */
   seasonOffers: (seasonId: string, farmId?: string, hash?: 'pickup-windows') =>
     `${withQuery(`/seasons/${encodeURIComponent(seasonId)}/offers`, { farmId })}${hash ? `#${hash}` : ''}`,
@@ -116,6 +133,11 @@ export const paths = {
   seasonCollections: (seasonId: string, farmId?: string) => withQuery(`/seasons/${encodeURIComponent(seasonId)}/collections`, { farmId }),
   /** Printable bundle labels for one farm's approved bundles. */
   bundleLabels: (seasonId: string, farmId: string) => withQuery(`/seasons/${encodeURIComponent(seasonId)}/collections/labels`, { farmId }),
+  /** The signed-in grower's collected bundles: strike reports and plants raised from them. */
+  myBundles: () => patterns.myBundles,
+  /** Strike-rate estimates by species, variety and treatment. */
+  strikeRates: (search: StrikeRatesSearch = {}) =>
+    withQuery(patterns.strikeRates, { speciesId: search.speciesId, varietyId: search.varietyId ?? undefined, treatment: search.treatment }),
 };
 
 function withSearch(path: string, search?: URLSearchParams | string): string {

@@ -94,6 +94,16 @@ const routes: RouteObject[] = [
             lazy: async () => ({ Component: (await import('./routes/plant-edit-route')).PlantEditRoute }),
           },
           {
+            path: patterns.plantTrace,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-trace-route')).PlantTraceRoute }),
+          },
+          {
+            path: patterns.plantExposure,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/plant-exposure-route')).PlantExposureRoute }),
+          },
+          {
             path: patterns.species,
             errorElement: <RouteError />,
             lazy: async () => ({ Component: (await import('./routes/species-route')).SpeciesRoute }),
@@ -112,6 +122,17 @@ const routes: RouteObject[] = [
             path: patterns.season,
             errorElement: <RouteError />,
             lazy: async () => ({ Component: (await import('./routes/season-route')).SeasonRoute }),
+          },
+          {
+            // Lazy like every page here: the chart library comes with this page only.
+            path: patterns.seasonFigures,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/season-figures-route')).SeasonFiguresRoute }),
+          },
+          {
+            path: patterns.figures,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/figures-route')).FiguresRoute }),
           },
           {
             path: patterns.seasonOffers,
@@ -164,6 +185,16 @@ const routes: RouteObject[] = [
             path: patterns.bundleLabels,
             errorElement: <RouteError />,
             lazy: async () => ({ Component: (await import('./routes/bundle-labels-route')).BundleLabelsRoute }),
+          },
+          {
+            path: patterns.myBundles,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/my-bundles-route')).MyBundlesRoute }),
+          },
+          {
+            path: patterns.strikeRates,
+            errorElement: <RouteError />,
+            lazy: async () => ({ Component: (await import('./routes/strike-rates-route')).StrikeRatesRoute }),
           },
         ],
       },

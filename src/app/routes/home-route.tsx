@@ -2,6 +2,7 @@ import { CoordinatorHome, type PendingCount } from '../../features/home/componen
 import { MemberHome } from '../../features/home/components/member-home';
 import { usePendingMemberCount } from '../../features/members/api/get-members';
 import { PickupsHomeCard } from '../../features/pickups/components/pickups-home-card';
+import { BundlesHomeCard } from '../../features/strike-reports/components/bundles-home-card';
 import { useSeasons } from '../../features/seasons/api/get-seasons';
 import { OpenSeasonCard } from '../../features/seasons/components/open-season-card';
 import { currentSeason } from '../../features/seasons/lib/season-facts';
@@ -47,6 +48,7 @@ export function HomeRoute() {
           season={
             <>
               <HomePickups />
+              <BundlesHomeCard />
               <HomeSeasonCard />
             </>
           }

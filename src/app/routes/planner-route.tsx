@@ -7,6 +7,7 @@ import { useSeasons } from '../../features/seasons/api/get-seasons';
 import { currentSeason, seasonsTakingRequests } from '../../features/seasons/lib/season-facts';
 import { useSpecies } from '../../features/species/api/get-species';
 import { Alert } from '../../components/ui/alert';
+import { ButtonLink } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
 import { PageHeader } from '../../components/ui/page-header';
 import { errorMessage } from '../../lib/api-client';
@@ -34,7 +35,12 @@ export function PlannerRoute() {
   const header = (
     <PageHeader
       title="Planner"
-      lead="Describe a planting and see how many cuttings to ask for, the chance each place ends with a rooted plant, and how many may stay empty."
+      lead="Describe a planting and see how many cuttings to ask for, the chance each place ends with a rooted plant, and how many may stay empty. The strike rates come from growers’ strike reports."
+      actions={
+        <ButtonLink variant="secondary" to={paths.strikeRates()}>
+          Strike rates
+        </ButtonLink>
+      }
     />
   );
 
@@ -77,6 +83,7 @@ export function PlannerRoute() {
         requestSeasons={requestSeasons}
         start={start}
         onAddToRequest={(seasonId, line) => navigate(paths.seasonRequest(seasonId, line))}
+        strikeRatesHref={paths.strikeRates}
       />
     </>
   );

@@ -8,10 +8,12 @@ import { ButtonLink } from '../../components/ui/button';
 import { Loading } from '../../components/ui/loading';
 import { ApiError, errorMessage } from '../../lib/api-client';
 import { paths } from '../paths';
-import { farmOptions } from './plant-routes-shared';
+import { farmOptions, isCoordinator } from './plant-routes-shared';
+import { useSignedIn } from './use-signed-in';
 
 export function PlantRoute() {
   const { id = '' } = useParams();
+  const me = useSignedIn();
   const plant = usePlant(id);
   const species = useSpecies();
   const farms = useFarms();
@@ -35,5 +37,5 @@ export function PlantRoute() {
     );
   }
   const genus = species.data?.items.find((s) => s.id === plant.data.speciesId)?.genus;
-  return <PlantPage plant={plant.data} genus={genusOf(plant.data, genus)} farms={farmOptions(farms.data?.items)} />;
+  return <PlantPage plant={plant.data} genus={genusOf(plant.data, genus)} farms={farmOptions(farms.data?.items)} coordinator={isCoordinator(me)} />;
 }

@@ -37,10 +37,17 @@ export type StatusKind =
   | 'ready'
   | 'collected'
   | 'cancelled'
+  // Strike report on a collected bundle
+  | 'report_waiting'
+  | 'report_due'
+  | 'reported'
   // E-mails sent for a round
   | 'mail_queued'
   | 'mail_sent'
-  | 'mail_failed';
+  | 'mail_failed'
+  // Plant-health notices, per grower and finding
+  | 'notice_sent'
+  | 'notice_due';
 
 type StatusLook = { label: string; shape: StatusShape; tone: string };
 
@@ -78,10 +85,17 @@ export const STATUS_LOOKS: Record<StatusKind, StatusLook> = {
   ready: { label: 'Ready', shape: 'half-circle', tone: 'border-amber/60 bg-amber-light text-amber' },
   collected: { label: 'Collected', shape: 'filled-circle', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
   cancelled: { label: 'Cancelled', shape: 'cross', tone: 'border-ink-faint/50 bg-paper-deep text-ink-soft' },
+  // Strike reports: hollow while the cuttings are still rooting, a triangle once a report is due, filled when filed.
+  report_waiting: { label: 'Report not due yet', shape: 'hollow-circle', tone: 'border-bark-light bg-paper-deep text-bark' },
+  report_due: { label: 'Report due', shape: 'triangle', tone: 'border-amber/60 bg-amber-light text-amber' },
+  reported: { label: 'Reported', shape: 'filled-circle', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
   // E-mails
   mail_queued: { label: 'Queued', shape: 'hollow-circle', tone: 'border-bark-light bg-paper-deep text-bark' },
   mail_sent: { label: 'Sent', shape: 'filled-circle', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
   mail_failed: { label: 'Failed', shape: 'octagon', tone: 'border-rust/50 bg-rust-light text-rust' },
+  // Plant-health notices
+  notice_sent: { label: 'Notice sent', shape: 'filled-square', tone: 'border-leaf/50 bg-leaf-light text-leaf-dark' },
+  notice_due: { label: 'Not notified yet', shape: 'hollow-circle', tone: 'border-amber/60 bg-amber-light text-amber' },
 };
 
 /** A round's status as a badge kind (a wood request already uses 'draft'). */

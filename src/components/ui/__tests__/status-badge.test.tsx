@@ -31,6 +31,7 @@ describe('StatusBadge', () => {
       ['round_draft', 'proposed', 'approved', 'notified'],
       ['reserved', 'ready', 'collected', 'cancelled'],
       ['mail_queued', 'mail_sent', 'mail_failed'],
+      ['report_waiting', 'report_due', 'reported'],
     ];
     for (const family of families) {
       const shapes = family.map((status) => STATUS_LOOKS[status].shape);

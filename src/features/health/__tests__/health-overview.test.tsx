@@ -38,8 +38,10 @@ describe('HealthOverviewView', () => {
 
     const table = screen.getByRole('table', { name: 'Plants that need attention' });
     const codes = within(table).getAllByRole('link').map((a) => a.textContent);
-    expect(codes).toEqual(['WTH-0007', 'ARB-0015', 'LYN-0036']);
+    expect(codes).toEqual(['WTH-0007', 'Exposure and notices of WTH-0007', 'ARB-0015', 'LYN-0036']);
     expect(within(table).getByRole('link', { name: 'WTH-0007' }).getAttribute('href')).toBe('/plants/h1');
+    // Only a plant on hold leads to the wood that may carry its finding.
+    expect(within(table).getByRole('link', { name: 'Exposure and notices of WTH-0007' }).getAttribute('href')).toBe('/plants/h1/exposure');
     const holdBadge = within(table).getAllByText('Hold')[0];
     expect(holdBadge.parentElement?.querySelector('svg')?.getAttribute('data-shape')).toBe('octagon');
     expect(within(table).getByText('Not inspected')).toBeTruthy();

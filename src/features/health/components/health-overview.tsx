@@ -153,7 +153,14 @@ function AttentionList({ items, lookbackMonths }: { items: HealthOverview['atten
                 {item.lastInspectedOn ? formatDay(item.lastInspectedOn) : <span className="lg:hidden">never</span>}
                 {item.lastInspectedOn ? null : <span className="max-lg:hidden">Never</span>}
               </td>
-              <td className={cn(td, 'max-lg:border-0 max-lg:py-0 max-lg:text-ink-soft')}>{item.reason}</td>
+              <td className={cn(td, 'max-lg:border-0 max-lg:py-0 max-lg:text-ink-soft')}>
+                {item.reason}
+                {item.healthStatus === 'hold' ? (
+                  <Link to={paths.plantExposure(item.id)} className="relative mt-1 block min-h-touch content-center font-semibold lg:min-h-0">
+                    Exposure and notices{' '}<span className="sr-only">of {item.code}</span>
+                  </Link>
+                ) : null}
+              </td>
             </tr>
           ))}
         </tbody>

@@ -44,6 +44,10 @@ export function MyPickups({ seasonId, seasonName }: { seasonId: string; seasonNa
         <Link to={paths.season(seasonId)}>About {slip.data.slip.seasonName}</Link>
       </p>
       <PickupSlipView slip={slip.data.slip} />
+      <p className="hw-no-print mt-6 max-w-prose print:hidden">
+        Once the cuttings have had time to root, report how many did under <Link to={paths.myBundles()}>My bundles</Link>: every strike report sharpens the
+        strike rates the planner uses.
+      </p>
     </>
   );
 }

@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import type { PlanFigures } from '../../../../shared/planner';
 import type { PlannerStrikeRate } from '../../../../shared/schemas/planner';
 import type { PlanMode } from '../lib/plan-form';
@@ -24,10 +25,12 @@ export type ResultsProps = {
   names: { species: string; variety: string | null };
   /** The server's answer for exactly these inputs, or the same shared functions run here meanwhile. */
   fromServer: boolean;
+  /** The strike-rate table for this species and treatment. */
+  ratesHref?: string;
 };
 
 /** The answer: cuttings to ask for and how well they fill the planting. */
-export function PlanResults({ mode, figures, strikeRate, target, names, fromServer }: ResultsProps) {
+export function PlanResults({ mode, figures, strikeRate, target, names, fromServer, ratesHref }: ResultsProps) {
   const ask = mode === 'rooted' ? (figures.cuttingsForTarget ?? figures.cuttings) : figures.cuttings;
   return (
     <section aria-labelledby="plan-results-title" aria-live="polite" className="flex flex-col gap-4 rounded-card border border-leaf/40 bg-leaf-light/50 p-5 sm:p-6">
@@ -76,6 +79,11 @@ export function PlanResults({ mode, figures, strikeRate, target, names, fromServ
           </span>
         </p>
         <p className="mt-1 text-sm text-ink-soft">{strikeRateSource(strikeRate, names)}</p>
+        {ratesHref ? (
+          <p className="mt-1 text-sm">
+            Strike rates are learned from growers’ strike reports: <Link to={ratesHref}>see the strike-rate table</Link>.
+          </p>
+        ) : null}
       </div>
       <p className="text-sm text-ink-soft">{fromServer ? 'Checked by the Heelwood server.' : 'Worked out on this device; the server’s check follows.'}</p>
     </section>

@@ -3,7 +3,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { LABELS, TREATMENTS, type Hemisphere, type SeasonKind } from '../../../../shared/domain';
 import { PLANNER_LIMITS } from '../../../../shared/planner';
 import type { Species } from '../../../../shared/schemas/register';
-import type { RequestLineSearch } from '../../../app/paths';
+import type { RequestLineSearch, StrikeRatesSearch } from '../../../app/paths';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Field, namedError, Select, TextInput } from '../../../components/ui/field';
@@ -49,6 +49,7 @@ export function Planner({
   requestSeasons,
   start,
   onAddToRequest,
+  strikeRatesHref,
 }: {
   species: Species[];
   hemisphere: Hemisphere;
@@ -56,6 +57,8 @@ export function Planner({
   requestSeasons: RequestSeasonChoice[];
   start?: PlanStart;
   onAddToRequest: (seasonId: string, line: RequestLineSearch) => void;
+  /** Where the strike-rate table for a species, variety and treatment is (the page knows the routes). */
+  strikeRatesHref?: (search: StrikeRatesSearch) => string;
 }) {
   const id = useId();
   const form = useForm<PlanFormValues>({ defaultValues: defaultPlanValues(start), resolver: planResolver(), mode: 'onChange' });
@@ -232,6 +235,7 @@ export function Planner({
             target={check.input?.target}
             names={names}
             fromServer={fresh !== null}
+            ratesHref={strikeRatesHref?.({ speciesId: values.speciesId || undefined, varietyId: values.varietyId || null, treatment: values.treatment })}
           />
         ) : (
           <section aria-labelledby={`${id}-waiting`} className="rounded-card border-2 border-dashed border-paper-edge p-5">

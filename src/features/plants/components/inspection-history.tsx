@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import type { InspectionView } from '../../../../shared/schemas/register';
 import { Button } from '../../../components/ui/button';
 import { EmptyState } from '../../../components/ui/empty-state';
@@ -10,7 +11,16 @@ import { SEVERITY_LABELS } from './words';
 /** The latest few are what a grower looks at; older years open on request. */
 export const INSPECTIONS_SHOWN = 5;
 
-export function InspectionHistory({ inspections, canInspect }: { inspections: InspectionView[]; canInspect: boolean }) {
+export function InspectionHistory({
+  inspections,
+  canInspect,
+  exposureHref,
+}: {
+  inspections: InspectionView[];
+  canInspect: boolean;
+  /** Coordinator: where a finding that travels in wood leads (what may carry it, and the notice). */
+  exposureHref?: (findingId: string) => string;
+}) {
   const [all, setAll] = useState(false);
   if (inspections.length === 0) {
     return (
@@ -46,6 +56,11 @@ export function InspectionHistory({ inspections, canInspect }: { inspections: In
                       {finding.travelsInWood ? <TravelsInWoodMark /> : <StaysOutOfWoodNote />}
                     </p>
                     {finding.notes ? <p className="text-ink-soft">{finding.notes}</p> : null}
+                    {finding.travelsInWood && exposureHref ? (
+                      <p>
+                        <Link to={exposureHref(finding.id)}>Where its wood went, and notices</Link>
+                      </p>
+                    ) : null}
                   </li>
                 ))}
               </ul>

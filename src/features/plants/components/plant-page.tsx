@@ -3,6 +3,7 @@ import { LABELS } from '../../../../shared/domain';
 import type { PlantDetail } from '../../../../shared/schemas/register';
 import { paths } from '../../../app/paths';
 import { Alert } from '../../../components/ui/alert';
+import { ButtonLink } from '../../../components/ui/button';
 import { Card, CardTitle } from '../../../components/ui/card';
 import { Loading } from '../../../components/ui/loading';
 import { StatusBadge } from '../../../components/ui/status-badge';
@@ -55,7 +56,18 @@ function StatusNotice({ plant }: { plant: PlantDetail }) {
   return null;
 }
 
-export function PlantPage({ plant, genus, farms }: { plant: PlantDetail; genus: string | null; farms: FarmOption[] }) {
+export function PlantPage({
+  plant,
+  genus,
+  farms,
+  coordinator = false,
+}: {
+  plant: PlantDetail;
+  genus: string | null;
+  farms: FarmOption[];
+  /** Coordinators follow a finding that travels in wood to the wood it may be in. */
+  coordinator?: boolean;
+}) {
   const pests = usePests();
   const position = formatPosition(plant.lat, plant.lon);
   const farmName = (id: string) => farms.find((farm) => farm.id === id)?.name;
@@ -77,6 +89,14 @@ export function PlantPage({ plant, genus, farms }: { plant: PlantDetail; genus: 
         </p>
         <div className="flex flex-wrap gap-2">
           <PlantActions plant={plant} farms={farms} />
+          <ButtonLink variant="secondary" to={paths.plantTrace(plant.id)}>
+            Trace
+          </ButtonLink>
+          {coordinator && plant.healthStatus === 'hold' ? (
+            <ButtonLink variant="secondary" to={paths.plantExposure(plant.id)}>
+              Exposure and notices
+            </ButtonLink>
+          ) : null}
         </div>
       </header>
 
@@ -129,7 +149,11 @@ export function PlantPage({ plant, genus, farms }: { plant: PlantDetail; genus: 
           {plant.full ? (
             <Card>
               <CardTitle>Inspections</CardTitle>
-              <InspectionHistory inspections={plant.inspections} canInspect={plant.can.inspect} />
+              <InspectionHistory
+                inspections={plant.inspections}
+                canInspect={plant.can.inspect}
+                exposureHref={coordinator ? (findingId) => paths.plantExposure(plant.id, findingId) : undefined}
+              />
             </Card>
           ) : null}
 
@@ -178,6 +202,10 @@ export function PlantPage({ plant, genus, farms }: { plant: PlantDetail; genus: 
                 </Row>
               ) : null}
             </dl>
+            <p className="mt-3">
+              <Link to={paths.plantTrace(plant.id)}>Trace its whole lineage</Link>
+              <span className="text-ink-soft"> — ancestors, every plant raised from its wood, and the bundles between them</span>
+            </p>
             <h3 className="mt-4 font-semibold">Raised from this plant</h3>
             {plant.children.length === 0 ? (
               <p className="text-ink-soft">No registered plant names this one as its parent yet.</p>

@@ -31,6 +31,13 @@ export function SeasonActions({ season, me }: { season: Season; me: Me }) {
       body: 'Your pickup slip: which farms to visit, when, in which order, and which bundles to collect.',
     });
   }
+  actions.push({
+    to: paths.seasonFigures(season.id),
+    title: 'Season figures',
+    body: coordinator
+      ? 'Wood offered, asked, allocated and collected; fill, travel, strike rates and the value of plants raised; charts and CSV.'
+      : 'Your own figures for this season: your farms’ wood and your requests, with charts and a CSV.',
+  });
   if (coordinator) {
     actions.push({
       to: paths.seasonRounds(season.id),
