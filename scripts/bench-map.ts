@@ -56,6 +56,9 @@ async function timeLoad(page: Page, url: string, expected: number): Promise<numb
     return {
       drawn: entries[entries.length - 1].startTime,
       domReady: Math.round(nav.domContentLoadedEventEnd),
+      routeRendered: Math.round(performance.getEntriesByName('heelwood:map-route').at(-1)?.startTime ?? -1),
+      mapMounted: Math.round(performance.getEntriesByName('heelwood:map-mounted').at(-1)?.startTime ?? -1),
+      meDone: end('/api/me'),
       featuresAsked: start('/api/map/features'),
       featuresDone: end('/api/map/features'),
       mapCodeDone: end('/assets/map-route-'),
@@ -191,8 +194,11 @@ async function main() {
 
     console.log(`plants: ${total} in the register; ${SMALL} on the bench farm; ${RUNS} timed loads each after a warm-up`);
     console.log(`drawMs runs ${big.map((x) => x.toFixed(0)).join(', ')}; drawMs100 runs ${small.map((x) => x.toFixed(0)).join(', ')}`);
+    // Timed loads alternate 10,000 / 100 after the warm-up (index 0).
     const keys = Object.keys(timelines[0]);
-    console.log(`timeline medians (ms from navigation): ${keys.map((k) => `${k} ${median(timelines.slice(1).map((t) => t[k])).toFixed(0)}`).join(', ')}`);
+    const line = (ts: Record<string, number>[]) => keys.map((k) => `${k} ${median(ts.map((t) => t[k])).toFixed(0)}`).join(', ');
+    console.log(`timeline medians, ${total} plants (ms from navigation): ${line(timelines.slice(1).filter((_, i) => i % 2 === 0))}`);
+    console.log(`timeline medians, ${SMALL} plants (ms from navigation): ${line(timelines.slice(1).filter((_, i) => i % 2 === 1))}`);
     console.log(`GET /api/map/features (${total} plants): median ${median(api).toFixed(0)} ms; markers and clusters in the DOM at farm zoom: ${visible}`);
     if (foreign.length) console.log(`requests to other hosts: ${foreign.join(', ')}`);
     console.log(

@@ -1,7 +1,9 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { Loading } from '../components/ui/loading';
+import { meQueryOptions } from '../features/auth/api/get-me';
 import { mapLoader } from '../features/map/api/map-loader';
 import { patterns } from './paths';
+import { queryClient } from './query-client';
 import { HomeRoute } from './routes/home-route';
 import { NotFoundRoute } from './routes/not-found-route';
 import { RouteError } from './routes/route-error';
@@ -51,6 +53,12 @@ const routes: RouteObject[] = [
       {
         element: <AppShell />,
         errorElement: <RouteError />,
+        // Asks who is signed in at once, while the page's own code is still downloading: the
+        // shell cannot draw the page before it knows, so asking later would add a round trip.
+        loader: () => {
+          void queryClient.prefetchQuery(meQueryOptions());
+          return null;
+        },
         children: [
           { index: true, element: <HomeRoute />, errorElement: <RouteError /> },
           {

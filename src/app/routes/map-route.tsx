@@ -11,6 +11,7 @@ import { paths } from '../paths';
 
 /** The offline map: farms and plants, placing plants, drawing beds and hedgerows. */
 export function MapRoute() {
+  if (!performance.getEntriesByName('heelwood:map-route').length) performance.mark('heelwood:map-route');
   const [params, setParams] = useSearchParams();
   const filters = useMemo(() => readMapFilters(params), [params]);
   const species = useSpecies();
