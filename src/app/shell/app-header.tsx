@@ -55,9 +55,6 @@ export function AppHeader({ me }: { me: Me }) {
     <header className="border-b border-paper-edge bg-paper-deep">
       <div className="mx-auto flex max-w-7xl items-center justify-between gap-4 px-4 py-2 sm:px-6">
         <Wordmark cooperativeName={cooperative.data?.name} />
-        <nav aria-label="Main" className="hidden lg:block">
-          <MainNav items={items} orientation="row" />
-        </nav>
         <div className="hidden items-center gap-4 lg:flex">
           {who}
           <Button variant="secondary" size="sm" onClick={onSignOut} busy={signOut.isPending}>
@@ -75,6 +72,10 @@ export function AppHeader({ me }: { me: Me }) {
           Menu
         </button>
       </div>
+      {/* Its own row on wide screens: ten areas fit on one line there, beside the name they did not. */}
+      <nav aria-label="Main" className="mx-auto hidden max-w-7xl px-2 pb-1 sm:px-4 lg:block">
+        <MainNav items={items} orientation="row" />
+      </nav>
       {signOut.isError ? (
         <p role="alert" className="mx-auto max-w-7xl px-4 pb-2 text-sm font-medium text-rust sm:px-6">
           Signing out did not work: {errorMessage(signOut.error)}
