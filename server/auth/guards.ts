@@ -25,9 +25,14 @@ declare global {
   }
 }
 
-export async function loadActor(ctx: AppContext, req: Request): Promise<Actor | undefined> {
+export async function loadActor(ctx: AppContext, req: Request, res?: Response): Promise<Actor | undefined> {
   if (req.actor) return req.actor;
-  const s = await ctx.auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+  const { headers, response: s } = await ctx.auth.api.getSession({ headers: fromNodeHeaders(req.headers), returnHeaders: true });
+  // better-auth renews its signed session cookie (cookieCache, auth.ts) and, once a day, the
+  // session's expiry: hand those cookies on, or every request after the first minute would
+  // look the session up in the database again.
+  const cookies = headers.getSetCookie();
+  if (res && cookies.length && !res.headersSent) res.append('Set-Cookie', cookies);
   if (!s) return undefined;
   const actor = await findActor(ctx.db, s.user.id);
   // A member suspended while signed in loses access at once.
@@ -43,8 +48,8 @@ export function actorOf(req: Request): Actor {
 }
 
 function guard(ctx: AppContext, check: (a: Actor) => string | null): RequestHandler {
-  return async (req: Request, _res: Response, next: NextFunction) => {
-    const actor = await loadActor(ctx, req);
+  return async (req: Request, res: Response, next: NextFunction) => {
+    const actor = await loadActor(ctx, req, res);
     if (!actor) throw unauthorized();
     const refusal = check(actor);
     if (refusal) throw forbidden(refusal);

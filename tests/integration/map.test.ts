@@ -3,7 +3,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { distanceM, lineLengthM } from '../../shared/geo.js';
-import { farms, motherPlants } from '../../server/db/schema/index.js';
+import { dataVersions, farms, motherPlants, species } from '../../server/db/schema/index.js';
 import { Client } from '../fixtures/http.js';
 import { startTestApp, type TestApp } from '../fixtures/test-app.js';
 
@@ -206,6 +206,70 @@ describe('moving a plant (PATCH /api/mother-plants/:id)', () => {
     expect((await as.grower.patch(`/api/mother-plants/${held.id}`, { lat: 52, lon: -2.5 })).status).toBe(404);
     const [row] = await app.ctx.db.select({ lat: motherPlants.lat }).from(motherPlants).where(eq(motherPlants.id, own.id));
     expect(row.lat).toBeCloseTo(own.lat + 0.0001, 9);
+  });
+});
+
+describe('the features cache (features-cache.ts, keyed by the register counter)', () => {
+  const registerVersion = async () => {
+    const [row] = await app.ctx.db.select({ version: dataVersions.version }).from(dataVersions).where(eq(dataVersions.name, 'register'));
+    return row.version;
+  };
+
+  it('a change written straight to the database, past every route, shows on the next request', async () => {
+    const before = (await as.grower.get<Features>('/api/map/features')).body;
+    const shown = before.plants.find((p) => p.healthStatus === 'clean')!;
+    await as.grower.get<Features>('/api/map/features');
+    const v0 = await registerVersion();
+    await app.ctx.db.update(motherPlants).set({ healthStatus: 'hold' }).where(eq(motherPlants.id, shown.id));
+    expect(await registerVersion()).toBeGreaterThan(v0);
+    try {
+      // Another farm's plant on hold is not shown to a grower; the coordinator sees the new status.
+      const grower = (await as.grower.get<Features>('/api/map/features')).body;
+      expect(grower.plants.some((p) => p.id === shown.id)).toBe(false);
+      expect(grower.plants).toHaveLength(before.plants.length - 1);
+      const coordinator = (await as.coordinator.get<Features>('/api/map/features')).body;
+      expect(coordinator.plants.find((p) => p.id === shown.id)?.healthStatus).toBe('hold');
+    } finally {
+      await app.ctx.db.update(motherPlants).set({ healthStatus: 'clean' }).where(eq(motherPlants.id, shown.id));
+    }
+    expect((await as.grower.get<Features>('/api/map/features')).body.plants.some((p) => p.id === shown.id)).toBe(true);
+  });
+
+  it('renaming a species moves the counter and the new name is drawn', async () => {
+    const plant = (await as.coordinator.get<Features>('/api/map/features')).body.plants[0];
+    const name = plant.speciesName;
+    const v0 = await registerVersion();
+    await app.ctx.db.update(species).set({ commonName: `${name} (renamed)` }).where(eq(species.commonName, name));
+    try {
+      expect(await registerVersion()).toBeGreaterThan(v0);
+      const after = (await as.coordinator.get<Features>('/api/map/features')).body;
+      expect(after.plants.find((p) => p.id === plant.id)!.speciesName).toBe(`${name} (renamed)`);
+    } finally {
+      await app.ctx.db.update(species).set({ commonName: name }).where(eq(species.commonName, `${name} (renamed)`));
+    }
+  });
+
+  it('people of one farm with different roles do not share a cached view', async () => {
+    const lead = (await as.lead.get<Features>('/api/map/features')).body;
+    const hand = (await as.hand.get<Features>('/api/map/features')).body;
+    expect(lead.farms.find((f) => f.id === leadFarmId)!.canEditOutline).toBe(true);
+    expect(hand.farms.find((f) => f.id === leadFarmId)!.canEditOutline).toBe(false);
+  });
+
+  it('answers 304 to a caller that holds the same features, and 200 with a new ETag after a change', async () => {
+    const first = await as.lead.get('/api/map/features');
+    const etag = first.headers.get('etag')!;
+    expect(etag).toMatch(/^W\/"/);
+    // As a browser revalidates (fetch would add `Cache-Control: no-cache` to a hand-set If-None-Match).
+    const revalidate = { 'if-none-match': etag, 'cache-control': 'max-age=0' };
+    const again = await as.lead.request('GET', '/api/map/features', undefined, { headers: revalidate });
+    expect(again.status).toBe(304);
+    const [plant] = await app.ctx.db.select({ id: motherPlants.id }).from(motherPlants).where(eq(motherPlants.farmId, leadFarmId)).limit(1);
+    await app.ctx.db.update(motherPlants).set({ lat: 52.1 }).where(eq(motherPlants.id, plant.id));
+    const changed = await as.lead.request('GET', '/api/map/features', undefined, { headers: revalidate });
+    expect(changed.status).toBe(200);
+    expect(changed.headers.get('etag')).not.toBe(etag);
+    expect(changed.body.plants.find((p: MapPlant) => p.id === plant.id).lat).toBe(52.1);
   });
 });
 

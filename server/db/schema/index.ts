@@ -4,3 +4,4 @@ export * from './register.js';
 export * from './health.js';
 export * from './exchange.js';
 export * from './records.js';
+export * from './versions.js';

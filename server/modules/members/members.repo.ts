@@ -37,14 +37,34 @@ export async function farmLinksFor(db: DbOrTx, userIds: string[]): Promise<Map<s
   return map;
 }
 
+/** The signed-in person and their farms, read on every guarded request: one query. */
 export async function findActor(db: DbOrTx, id: string) {
-  const [u] = await db
-    .select({ id: user.id, name: user.name, email: user.email, role: user.role, status: user.status })
+  const rows = await db
+    .select({
+      id: user.id,
+      name: user.name,
+      email: user.email,
+      role: user.role,
+      status: user.status,
+      farmId: farms.id,
+      farmName: farms.name,
+      farmCode: farms.code,
+      farmRole: farmMemberships.farmRole,
+    })
     .from(user)
-    .where(eq(user.id, id));
-  if (!u) return undefined;
-  const links = await farmLinksFor(db, [id]);
-  return { ...u, farms: links.get(id) ?? [] };
+    .leftJoin(farmMemberships, eq(farmMemberships.userId, user.id))
+    .leftJoin(farms, eq(farms.id, farmMemberships.farmId))
+    .where(eq(user.id, id))
+    .orderBy(asc(farms.name));
+  if (!rows.length) return undefined;
+  const { name, email, role, status } = rows[0];
+  const links: FarmLink[] = [];
+  for (const r of rows) {
+    if (r.farmId !== null && r.farmName !== null && r.farmCode !== null && r.farmRole !== null) {
+      links.push({ farmId: r.farmId, farmName: r.farmName, farmCode: r.farmCode, farmRole: r.farmRole });
+    }
+  }
+  return { id: rows[0].id, name, email, role, status, farms: links };
 }
 
 export async function findMember(db: DbOrTx, id: string): Promise<Member | undefined> {

@@ -94,13 +94,17 @@ export async function listPlants(db: DbOrTx, f: PlantListFilters, vis: Visibilit
       .orderBy(...order, asc(motherPlants.id))
       .limit(f.pageSize)
       .offset((f.page - 1) * f.pageSize),
-    db
-      .select({ total: sql<number>`count(*)::int` })
-      .from(motherPlants)
-      .innerJoin(farms, eq(farms.id, motherPlants.farmId))
-      .innerJoin(species, eq(species.id, motherPlants.speciesId))
-      .leftJoin(varieties, eq(varieties.id, motherPlants.varietyId))
-      .where(where),
+    // Only a text search reads the joined names; the joins on required keys drop no row, so
+    // without one the count reads the plants alone.
+    f.q
+      ? db
+          .select({ total: sql<number>`count(*)::int` })
+          .from(motherPlants)
+          .innerJoin(farms, eq(farms.id, motherPlants.farmId))
+          .innerJoin(species, eq(species.id, motherPlants.speciesId))
+          .leftJoin(varieties, eq(varieties.id, motherPlants.varietyId))
+          .where(where)
+      : db.select({ total: sql<number>`count(*)::int` }).from(motherPlants).where(where),
   ]);
   return { rows, total };
 }

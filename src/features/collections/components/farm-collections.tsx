@@ -66,7 +66,7 @@ function Visit({ visit, timezone, seasonId, farmId }: { visit: GrowerVisit; time
     <li className="rounded-card border border-paper-edge bg-white/60 p-4 sm:p-5" data-testid="collection-visit">
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div>
-          <h3 className="text-lg font-semibold">{visit.growerName}</h3>
+          <h2 className="text-lg font-semibold">{visit.growerName}</h2>
           <p className="text-sm">
             <a href={`mailto:${visit.growerEmail}`} className="break-all">
               {visit.growerEmail}

@@ -59,7 +59,7 @@ export function SeasonsList({ seasons, isCoordinator }: { seasons: Season[]; isC
           <h2 id="seasons-past-title" className="mb-3 text-xl font-semibold">
             Past seasons
           </h2>
-          <TableShell caption="Past seasons" tableClassName="min-w-[40rem]">
+          <TableShell caption="Past seasons and their figures" tableClassName="min-w-[40rem]">
             <thead>
               <tr>
                 <th scope="col" className={th}>

@@ -1,0 +1,69 @@
+// The map's features, kept serialized between requests. With 10,000 plants they are about
+// 1.6 MB of JSON and the costliest read of the app to build, and everyone opening the map asks
+// for one of a few variants. An entry is keyed by the filters and by what the caller may see
+// (coordinator, or their farms and roles: mapFeatures' only inputs besides the data), and the
+// whole cache by the database's 'register' counter, which triggers move on every change to
+// mother plants, farms, species and varieties (migration 0002): a change made anywhere (any
+// route, a job, a script) is seen by the next request.
+import { createHash } from 'node:crypto';
+import { eq } from 'drizzle-orm';
+import type { Actor } from '../../auth/guards.js';
+import type { Db } from '../../db/client.js';
+import { dataVersions } from '../../db/schema/index.js';
+import { isCoordinator } from '../mother-plants/plant-access.js';
+
+export type SerializedBody = { body: Buffer; etag: string };
+
+/** Variants kept at once: a few filter combinations times a few farms' viewpoints. */
+const MAX_ENTRIES = 24;
+
+function serialize(value: unknown): SerializedBody {
+  const body = Buffer.from(JSON.stringify(value));
+  return { body, etag: `W/"${body.length.toString(16)}-${createHash('sha1').update(body).digest('base64url')}"` };
+}
+
+/** What decides the caller's view of the map: everything for a coordinator, else their farms. */
+function viewerKey(a: Actor): string {
+  if (isCoordinator(a)) return 'coordinator';
+  return a.farms
+    .map((f) => `${f.farmId}:${f.farmRole}`)
+    .sort()
+    .join(',');
+}
+
+export type FeaturesCache = {
+  get(db: Db, a: Actor, filters: object, build: () => Promise<unknown>): Promise<SerializedBody>;
+};
+
+/** One cache per app (tests run several apps, on different databases, in one process). */
+export function createFeaturesCache(): FeaturesCache {
+  let version = -1;
+  // Promises, so that requests arriving while a variant is being built wait for that build.
+  const entries = new Map<string, Promise<SerializedBody>>();
+  return {
+    async get(db, a, filters, build) {
+      // Read the counter before the data: whatever is built next is at least this new.
+      const [row] = await db.select({ version: dataVersions.version }).from(dataVersions).where(eq(dataVersions.name, 'register'));
+      const current = row?.version;
+      // No counter row, or a request that read the counter before a newer one was seen: build without the cache.
+      if (current === undefined || current < version) return serialize(await build());
+      if (current > version) {
+        entries.clear();
+        version = current;
+      }
+      const key = `${viewerKey(a)}|${JSON.stringify(filters)}`;
+      let entry = entries.get(key);
+      if (!entry) {
+        const made = build().then(serialize);
+        entry = made;
+        entries.set(key, made);
+        made.catch(() => {
+          if (entries.get(key) === made) entries.delete(key);
+        });
+        // Map keeps insertion order: drop the oldest variant.
+        if (entries.size > MAX_ENTRIES) entries.delete(entries.keys().next().value!);
+      }
+      return entry;
+    },
+  };
+}
