@@ -55,6 +55,11 @@ export const PAGES: A11yPage[] = [
   { name: 'health', as: 'coordinator', path: () => '/health' },
   { name: 'members', as: 'coordinator', path: () => '/members' },
   { name: 'mailbox', as: 'coordinator', path: () => '/mailbox' },
+  { name: 'my bundles', as: 'hand', path: () => '/my-bundles' },
+  { name: 'strike rates', as: 'grower', path: () => '/strike-rates' },
+  { name: 'plant trace', as: 'coordinator', path: (fx) => `/plants/${fx.plantId}/trace` },
+  { name: 'season figures', as: 'coordinator', path: (fx) => `/figures/${fx.pastSeasonId}` },
+  { name: 'season figures', as: 'pastGrower', path: (fx) => `/figures/${fx.pastSeasonId}` },
 ];
 
 type Violation = { id: string; impact?: string | null; help: string; helpUrl: string; nodes: { target: unknown[]; failureSummary?: string }[] };
