@@ -9,7 +9,8 @@ import type { MapFarm, MapPlant, OutlineFeature, TileMeta } from '../api/types';
 import { escapeHtml, formatLatLon } from '../lib/format';
 import { gridLines, gridStepForZoom } from '../lib/grid';
 import { L } from '../lib/leaflet-plugins';
-import { clusterIconHtml, farmIconHtml, plantIconHtml, type ClusterCounts } from '../lib/marker-icons';
+import { clusterIconHtml, farmIconHtml, plantIconHtml } from '../lib/marker-icons';
+import { isCluster, PlantClusters } from '../lib/plant-clusters';
 import './map.css';
 
 export const MAP_MAX_ZOOM = 19;
@@ -164,6 +165,8 @@ function ZoomClasses() {
   const map = useMap();
   useEffect(() => {
     const el = map.getContainer();
+    // A named region: a name on a plain div (Leaflet's container) is not announced.
+    el.setAttribute('role', 'region');
     el.setAttribute('aria-label', "Map of the cooperative's farms and mother plants. Arrow keys pan, plus and minus zoom.");
     const update = () => {
       const z = map.getZoom();
@@ -244,8 +247,6 @@ function FarmLayer({ farms, onSelect }: { farms: MapFarm[]; onSelect: (f: MapFar
   return null;
 }
 
-const plantOf = new WeakMap<Leaflet.Marker, MapPlant>();
-
 /**
  * A plant's icon, whose HTML is written only when the marker is actually drawn: of 10,000
  * markers only the few hundred unclustered in view ever are.
@@ -266,77 +267,20 @@ function plantIcon(plant: MapPlant): Leaflet.DivIcon {
 }
 
 /**
- * Plants of each status under a cluster, summed from its child clusters and cached until its
- * count changes, so redrawing a cluster of 10,000 does not walk 10,000 markers each time.
+ * Plants in clusters (supercluster): the index is built once per plants array, and on every
+ * move only the clusters and plants in the padded view become markers, in one layer group;
+ * markers still wanted after a move are kept as they are.
  */
-type ClusterNode = Leaflet.MarkerCluster & { _markers: Leaflet.Marker[]; _childClusters: ClusterNode[]; _childCount: number };
-const clusterCounts = new WeakMap<ClusterNode, { n: number; counts: ClusterCounts }>();
-function countsOf(cluster: ClusterNode): ClusterCounts {
-  const cached = clusterCounts.get(cluster);
-  if (cached && cached.n === cluster._childCount) return cached.counts;
-  const counts: ClusterCounts = { clean: 0, watch: 0, hold: 0, retired: 0 };
-  for (const m of cluster._markers) {
-    const p = plantOf.get(m);
-    if (p) counts[p.healthStatus] += 1;
-  }
-  for (const c of cluster._childClusters) {
-    const sub = countsOf(c);
-    counts.clean += sub.clean;
-    counts.watch += sub.watch;
-    counts.hold += sub.hold;
-    counts.retired += sub.retired;
-  }
-  clusterCounts.set(cluster, { n: cluster._childCount, counts });
-  return counts;
-}
-
-function maxClusterRadius(zoom: number): number {
-  if (zoom >= 19) return 14;
-  if (zoom >= 17) return 28;
-  return 50;
-}
-
-/** Plants in clusters (Leaflet.markercluster): 10,000 markers, only the visible ones in the DOM. */
 function PlantClusterLayer({ plants, onSelect, onDrawn }: { plants: MapPlant[]; onSelect: (p: MapPlant) => void; onDrawn?: (n: number) => void }) {
   const map = useMap();
   const onSelectRef = useRef(onSelect);
   onSelectRef.current = onSelect;
   const onDrawnRef = useRef(onDrawn);
   onDrawnRef.current = onDrawn;
-  const pending = useRef<{ total: number } | null>(null);
-  const [group, setGroup] = useState<Leaflet.MarkerClusterGroup | null>(null);
+  const [group, setGroup] = useState<Leaflet.LayerGroup | null>(null);
 
   useEffect(() => {
-    const finish = () => {
-      const done = pending.current;
-      pending.current = null;
-      if (done) requestAnimationFrame(() => onDrawnRef.current?.(done.total));
-    };
-    const g = L.markerClusterGroup({
-      // Chunks keep the page answering while 10,000 markers are sorted into clusters; short
-      // pauses between them, since the pauses add up (50 ms each by default).
-      chunkedLoading: true,
-      chunkInterval: 200,
-      chunkDelay: 8,
-      chunkProgress: (processed, total) => {
-        if (processed === total) finish();
-      },
-      showCoverageOnHover: false,
-      spiderfyOnMaxZoom: true,
-      removeOutsideVisibleBounds: true,
-      maxClusterRadius,
-      spiderLegPolylineOptions: { weight: 1.5, color: '#6f543d', opacity: 0.6 },
-      iconCreateFunction: (cluster) => {
-        const { html, size } = clusterIconHtml(cluster.getChildCount(), countsOf(cluster as ClusterNode));
-        return L.divIcon({ html, className: 'hw-cluster-icon', iconSize: [size, size] });
-      },
-    });
-    // One listener for every plant: the group hears its markers' clicks.
-    g.on('click', (e: Leaflet.LeafletEvent & { layer?: Leaflet.Marker }) => {
-      const p = e.layer && plantOf.get(e.layer);
-      if (p) onSelectRef.current(p);
-    });
-    g.addTo(map);
+    const g = L.layerGroup().addTo(map);
     // The map exists and awaits its plants (scripts/bench-map.ts reads this mark).
     performance.mark('heelwood:map-mounted');
     setGroup(g);
@@ -348,18 +292,57 @@ function PlantClusterLayer({ plants, onSelect, onDrawn }: { plants: MapPlant[]; 
   useEffect(() => {
     if (!group) return;
     group.clearLayers();
-    const markers = plants.map((p) => {
-      const m = L.marker([p.lat, p.lon], { icon: plantIcon(p), keyboard: true });
-      plantOf.set(m, p);
-      return m;
-    });
-    pending.current = { total: markers.length };
-    if (markers.length) group.addLayers(markers);
-    else {
-      pending.current = null;
-      requestAnimationFrame(() => onDrawnRef.current?.(0));
-    }
-  }, [group, plants]);
+    const index = new PlantClusters(plants);
+    const shown = new Map<string, Leaflet.Marker>();
+    const render = () => {
+      const zoom = Math.round(map.getZoom());
+      const b = map.getBounds().pad(0.5);
+      const bbox: [number, number, number, number] = [
+        Math.max(-180, b.getWest()),
+        Math.max(-85, b.getSouth()),
+        Math.min(180, b.getEast()),
+        Math.min(85, b.getNorth()),
+      ];
+      const wanted = new Map<string, Leaflet.Marker>();
+      for (const f of index.clusters(bbox, zoom)) {
+        const [lon, lat] = f.geometry.coordinates;
+        if (isCluster(f)) {
+          const p = f.properties;
+          const key = `c${zoom}:${p.cluster_id}`;
+          let m = shown.get(key);
+          if (!m) {
+            const { html, size } = clusterIconHtml(p.point_count, { clean: p.clean, watch: p.watch, hold: p.hold, retired: p.retired });
+            m = L.marker([lat, lon], { icon: L.divIcon({ html, className: 'hw-cluster-icon', iconSize: [size, size] }), keyboard: true });
+            const id = p.cluster_id;
+            m.on('click', () => map.setView([lat, lon], Math.min(index.expansionZoom(id, zoom), MAP_MAX_ZOOM)));
+          }
+          wanted.set(key, m);
+        } else {
+          const plant = f.properties.plant;
+          const key = `p${plant.id}`;
+          let m = shown.get(key);
+          if (!m) {
+            m = L.marker([lat, lon], { icon: plantIcon(plant), keyboard: true });
+            m.on('click', () => onSelectRef.current(plant));
+          }
+          wanted.set(key, m);
+        }
+      }
+      for (const [key, m] of shown) if (!wanted.has(key)) group.removeLayer(m);
+      for (const [key, m] of wanted) if (!shown.has(key)) group.addLayer(m);
+      shown.clear();
+      for (const [key, m] of wanted) shown.set(key, m);
+    };
+    render();
+    // Drawn: the browser paints the markers in the next frame.
+    const frame = requestAnimationFrame(() => onDrawnRef.current?.(index.total));
+    map.on('moveend', render);
+    return () => {
+      cancelAnimationFrame(frame);
+      map.off('moveend', render);
+      group.clearLayers();
+    };
+  }, [map, group, plants]);
   return null;
 }
 

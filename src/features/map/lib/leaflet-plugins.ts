@@ -1,6 +1,4 @@
-// Imported after ./leaflet so that the global L exists when the plugin runs.
+// The map's Leaflet, for the map's components (geoman is added by ./geoman-plugin).
 import { L } from './leaflet';
-import 'leaflet.markercluster';
-import 'leaflet.markercluster/dist/MarkerCluster.css';
 
 export { L };
