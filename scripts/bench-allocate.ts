@@ -1,6 +1,7 @@
 // Benchmark of the allocation model on a made-up cooperative, reproducible from its seed.
 //   npm run bench:allocate -- --offers 5000 --lines 2000 [--seed 1] [--time-limit 60] [--gap 0.005]
 // Prints progress to stderr and one JSON line last on stdout.
+import { loadavg } from 'node:os';
 import { pathToFileURL } from 'node:url';
 import { destination, type LatLon } from '../shared/geo.js';
 import { type AllocInput, type AllocLine, type AllocOffer, greedyAllocation, solveAllocation } from '../server/modules/allocation-rounds/allocation-model.js';
@@ -134,7 +135,11 @@ async function main() {
   const wood = input.offers.reduce((s, o) => s + o.available, 0);
   const asked = input.lines.reduce((s, l) => s + l.cuttings, 0);
   console.error(`cooperative: ${offers} offers (${wood} cuttings), ${lines} lines (${asked} cuttings asked), seed ${seed}`);
+  // The machine is shared: the load average and this process's CPU time go with the wall time.
+  const load = loadavg()[0];
+  const cpu0 = process.cpuUsage();
   const result = await solveAllocation(input, { timeLimitSeconds, travelGap });
+  const cpu = process.cpuUsage(cpu0);
   for (const s of result.stats.stages) console.error(`  ${s.name}: ${s.status}, objective ${s.objective}, ${s.seconds} s`);
   const greedy = greedyAllocation(input);
   console.error(`solved in ${result.stats.seconds.toFixed(2)} s; greedy in ${greedy.stats.seconds.toFixed(2)} s`);
@@ -151,6 +156,8 @@ async function main() {
       totalCuttings: result.stats.totalCuttings,
       travelKm: round(result.stats.travelKm, 1),
       greedy: { minFill: round(greedy.stats.minFill), totalCuttings: greedy.stats.totalCuttings, travelKm: round(greedy.stats.travelKm, 1) },
+      cpuSeconds: round((cpu.user + cpu.system) / 1e6, 3),
+      loadAvg: round(load, 2),
     }),
   );
 }

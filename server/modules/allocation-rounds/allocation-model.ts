@@ -42,10 +42,16 @@
 //    integer question; with limits a fractional vertex goes to the MIP. The volume optimum
 //    then comes out of the same solve. Both are proven optimal when the LPs converged
 //    (stats.optimal).
-//  - Travel: the LP bound (with "visit at least one farm" rows for lines that must get
-//    wood), a rounding that keeps the LP's visits and re-solves the flow, then the MIP over
-//    the subset started from the best so far and stopped within `travelGap` of the bound.
-//    stats.gap is measured against a bound valid for the whole problem, never the subset's.
+//  - Travel: a local search without the solver (allocation-travel.ts: close visits while the
+//    others can carry their wood) gives a first answer; the LP bound (with "visit at least
+//    one farm" rows for lines that must get wood) by column generation, each round giving a
+//    valid bound over all arcs even when cut short (travelLowerBound); a rounding that keeps
+//    the LP's visits and re-solves the flow, and the local search again from there (the
+//    LP's visits guide it to much better answers than the volume solution does); then, only
+//    when the subset is every arc, the MIP from the best so far, stopped within `travelGap`
+//    of the bound. stats.gap is measured against a bound valid for the whole problem, never
+//    the subset's. On large problems the LP relaxation itself is the limit: its bound lies
+//    far below the best known answers (see DEVELOPERS.md, "Allocation").
 //
 // Reproducible: offers and lines are sorted by id before anything is built, HiGHS runs with a
 // fixed seed on one thread, and lots are split over offers in id order. A time limit that cuts
@@ -55,7 +61,8 @@
 import { distanceM } from '../../../shared/geo.js';
 import { type Prepared, prepare, splitLots } from './allocation-arcs.js';
 import { highs, runStage, type StageRun } from './allocation-highs.js';
-import { buildMaster, carryBasis, type Ctx, context, type Master, price, pricingSlack, type StageSpec, wholeCuttings } from './allocation-stages.js';
+import { coverBound, improveTravel } from './allocation-travel.js';
+import { buildMaster, carryBasis, type Ctx, context, type Master, price, pricingSlack, type StageSpec, travelLowerBound, wholeCuttings } from './allocation-stages.js';
 
 export type AllocOffer = { id: string; plantId: string; farmId: string; speciesId: string; varietyId: string | null; available: number; lat: number; lon: number };
 export type AllocLine = {
@@ -325,18 +332,21 @@ export async function solveAllocation(
     let rounds = 0;
     let prev: { m: Master; basis: { colStatus: Int32Array; rowStatus: Int32Array } } | null = null;
     let good: { m: Master; run: StageRun } | null = null;
+    // Travel: the best lower bound over all arcs any round's duals give (see travelLowerBound).
+    let lower = Number.NEGATIVE_INFINITY;
     for (;;) {
       const m = buildMaster(c, [...subset], spec);
       const run = runStage(h, m.model, { timeLimit: left() }, undefined, prev ? carryBasis(prev.m, prev.basis, m) : undefined);
       seconds += run.seconds;
       rounds++;
-      if (process.env.HEELWOOD_ALLOC_TRACE === '1') console.error(`  ${spec.kind} LP round ${rounds}: ${m.arcs.length} arcs, ${m.model.rowLower.length} rows, ${run.status}, ${run.seconds.toFixed(2)} s, objective ${run.objective}`);
-      if (run.status !== 'optimal') return { m, run, seconds, converged: false, rounds, good };
+      if (run.status === 'optimal' && spec.kind === 'travel') lower = Math.max(lower, everyArc() ? run.objective : travelLowerBound(c, m, run.objective, run.rowDual, run.colDual, inSubset));
+      if (process.env.HEELWOOD_ALLOC_TRACE === '1') console.error(`  ${spec.kind} LP round ${rounds}: ${m.arcs.length} arcs, ${m.model.rowLower.length} rows, ${run.status}, ${run.seconds.toFixed(2)} s, objective ${run.objective}${spec.kind === 'travel' ? `, bound ${lower}` : ''}`);
+      if (run.status !== 'optimal') return { m, run, seconds, converged: false, rounds, good, lower };
       good = { m, run };
       if (run.basis) prev = { m, basis: run.basis };
       const more = everyArc() ? [] : price(c, m, spec, run.rowDual, run.colDual, inSubset);
-      if (more.length === 0) return { m, run, seconds, converged: true, rounds, good };
-      if (left() <= deadline) return { m, run, seconds, converged: false, rounds, good };
+      if (more.length === 0) return { m, run, seconds, converged: true, rounds, good, lower };
+      if (left() <= deadline) return { m, run, seconds, converged: false, rounds, good, lower };
       grow(more);
     }
   };
@@ -409,65 +419,89 @@ export async function solveAllocation(
   const volume = alloc.reduce((s, v) => s + v, 0);
   stages.push({ name: 'volume', objective: volume, status: proven(volProven, volStatus), seconds: round3(volSeconds) });
 
-  // 3. Travel: LP bound over all arcs, then the MIP over the subset, started from the volume
-  // solution and stopped once within the gap of that bound.
+  // 3. Travel: see the notes at the top. Over a subset a MIP's own bound says nothing about
+  // the whole problem, and HiGHS's search there took minutes for a fraction of a per cent
+  // (measured on the benchmark), so large problems end with the search and the LP bound.
   const travelSpec: StageSpec = { kind: 'travel', integer: false, floors, volume };
-  // The LP may use at most about half the time left, so that rounding and the MIP get theirs.
-  const travLp = solveLp(travelSpec, left() / 2);
-  const bound = travLp.converged ? travLp.run.objective - (everyArc() ? 0 : pricingSlack(c, inSubset, 'travel')) : Number.NEGATIVE_INFINITY;
-  let travSeconds = travLp.seconds;
+  const trace = process.env.HEELWOOD_ALLOC_TRACE === '1' ? (msg: string) => console.error(`  ${msg}`) : () => {};
   let best = travelObjective(c, arcs);
-  // Rounding: keep every visit the LP makes, then the cheapest whole flow through those farms
-  // (an LP again; on these models its vertex is normally whole). A good start for the MIP.
-  if (travLp.good && left() > 0) {
+  const travStarted = performance.now();
+  /** Keeps `next` when it is whole, within every capacity, keeps floors and total, and is cheaper. */
+  const offer = (next: Float64Array, what: string) => {
+    const obj = travelObjective(c, next);
+    const ok = checkFeasible(c, next, floors) && next.reduce((s, v) => s + v, 0) + c.lockedTotal === volume;
+    trace(`travel ${what}: ${obj.toFixed(3)}${ok ? '' : ' (refused: not feasible)'}, best ${best.toFixed(3)}`);
+    if (ok && obj < best - 1e-9) {
+      arcs = next;
+      best = obj;
+    }
+  };
+  // The search runs to its end unless the time limit comes first, so that its result does not
+  // depend on the machine's speed; when the limit cuts it short the stage says 'time_limit'.
+  let cut = false;
+  const search = (from: Float64Array, what: string, more: { priority?: Float64Array; consolidate?: boolean }) => {
+    const t0 = performance.now();
+    const next = improveTravel(c, from, floors, { stop: () => left() <= 0, ...more, trace: (m) => trace(`  ${m}`) });
+    if (left() <= 0) cut = true;
+    trace(`travel search took ${((performance.now() - t0) / 1000).toFixed(2)} s`);
+    offer(next, what);
+  };
+  // A quick first answer, in case the LP does not finish in time.
+  search(arcs, 'search from the volume solution', { consolidate: false });
+  // The subset holds the best solution's arcs: the LP starts near it, the MIP can start from it.
+  const missing: number[] = [];
+  for (let k = 0; k < n; k++) if (arcs[k] > 0 && !inSubset[k]) missing.push(k);
+  if (missing.length) grow(missing);
+  // The LP may use at most about half the time left, so that the rest and the MIP get theirs.
+  const travLp = solveLp(travelSpec, left() / 2);
+  const bound = Math.max(travLp.lower, travLp.converged ? travLp.run.objective - (everyArc() ? 0 : pricingSlack(c, inSubset, 'travel')) : Number.NEGATIVE_INFINITY);
+  trace(`travel LP bound ${bound}`);
+  const within = (lower: number) => Number.isFinite(lower) && best <= lower + travelGap * Math.abs(best) + 1e-9;
+  // From the LP: keep every visit it makes, route the cheapest whole flow through them (an LP
+  // again; on these models its vertex is normally whole), then close visits as above, those
+  // the LP makes least first.
+  if (travLp.good && left() > 0 && !within(bound)) {
     const lp = travLp.good;
     const open = new Uint8Array(p.gfGrower.length);
+    const yLp = new Float64Array(p.gfGrower.length).fill(1);
     lp.m.colVisit.forEach((col, gf) => {
+      if (col >= 0) yLp[gf] = lp.run.x[col];
       if (col >= 0 && lp.run.x[col] > 1e-9) open[gf] = 1;
     });
     const kept = subset.filter((k) => open[p.arcGf[k]] || p.gfLocked[p.arcGf[k]] > 0);
     const mr = buildMaster(c, kept, travelSpec);
     for (const col of mr.colVisit) if (col >= 0) mr.model.colLower[col] = 1;
     const run = runStage(h, mr.model, { timeLimit: left() });
-    travSeconds += run.seconds;
     if (run.status === 'optimal' && isWhole(run.x, mr.arcs.length)) {
-      const next = arcValues(c, mr, run.x);
-      const obj = travelObjective(c, next);
-      if (checkFeasible(c, next, floors) && next.reduce((s, v) => s + v, 0) + c.lockedTotal === volume && obj < best) {
-        arcs = next;
-        best = obj;
-      }
+      const rounded = arcValues(c, mr, run.x);
+      offer(rounded, 'LP rounding');
+      if (left() > 0 && checkFeasible(c, rounded, floors)) search(rounded, 'search from the LP rounding', { priority: yLp });
     }
   }
-  const mipMaster = buildMaster(c, [...subset], { ...travelSpec, integer: true });
-  const start = new Float64Array(mipMaster.model.colCost.length);
-  mipMaster.arcs.forEach((k, j) => (start[j] = arcs![k]));
-  for (let j = 0; j < mipMaster.arcs.length; j++) {
-    const gf = p.arcGf[mipMaster.arcs[j]];
-    if (start[j] > 0 && mipMaster.colVisit[gf] >= 0) start[mipMaster.colVisit[gf]] = 1;
-  }
-  const startObjective = best;
-  let travStatus = 'start';
+  let travStatus = within(bound) ? 'optimal_within_gap' : travLp.converged && !cut ? 'feasible' : 'time_limit';
   let mipBound = Number.NEGATIVE_INFINITY;
-  if (left() > 0 && !(bound > Number.NEGATIVE_INFINITY && startObjective <= bound + travelGap * Math.abs(startObjective) + 1e-9)) {
-    const target = bound > Number.NEGATIVE_INFINITY ? bound + travelGap * Math.abs(bound) : undefined;
-    const mip = runStage(h, mipMaster.model, { timeLimit: left(), relGap: travelGap, absGap: 1e-6, target }, start);
-    travSeconds += mip.seconds;
-    travStatus = mip.status;
-    if (mip.feasible) {
-      const next = arcValues(c, mipMaster, mip.x);
-      const obj = travelObjective(c, next);
-      if (checkFeasible(c, next, floors) && next.reduce((s, v) => s + v, 0) + c.lockedTotal === volume && obj <= best) {
-        arcs = next;
-        best = obj;
-      }
+  if (left() > 0 && !within(bound) && everyArc()) {
+    const mipMaster = buildMaster(c, [...subset], { ...travelSpec, integer: true });
+    const start = new Float64Array(mipMaster.model.colCost.length);
+    const incumbent = arcs;
+    mipMaster.arcs.forEach((k, j) => (start[j] = incumbent[k]));
+    for (let j = 0; j < mipMaster.arcs.length; j++) {
+      const gf = p.arcGf[mipMaster.arcs[j]];
+      if (start[j] > 0 && mipMaster.colVisit[gf] >= 0) start[mipMaster.colVisit[gf]] = 1;
     }
-    // Over every arc HiGHS's own bound holds for the whole problem too.
-    if (everyArc() && Number.isFinite(mip.dualBound)) mipBound = mip.dualBound;
-  } else travStatus = left() > 0 ? 'optimal_within_gap' : 'time_limit';
-  const lower = Math.max(bound, mipBound);
+    const target = Number.isFinite(bound) ? bound + travelGap * Math.abs(bound) : undefined;
+    const mip = runStage(h, mipMaster.model, { timeLimit: left(), relGap: travelGap, absGap: 1e-6, target }, start);
+    travStatus = mip.status;
+    if (mip.feasible) offer(arcValues(c, mipMaster, mip.x), 'MIP');
+    // Over every arc HiGHS's own bound holds for the whole problem.
+    if (Number.isFinite(mip.dualBound)) mipBound = mip.dualBound;
+  }
+  // The set-cover bound needs no solver and holds even when the LP gave nothing.
+  const cover = coverBound(c, floors);
+  const lower = Math.max(bound, mipBound, cover);
+  trace(`travel lower bounds: LP ${bound}, MIP ${mipBound}, cover ${cover}`);
   const gap = Number.isFinite(lower) && best > 0 ? Math.max(0, (best - lower) / Math.abs(best)) : best === 0 ? 0 : 1;
-  stages.push({ name: 'travel', objective: best, status: travStatus, seconds: round3(travSeconds) });
+  stages.push({ name: 'travel', objective: best, status: travStatus, seconds: round3((performance.now() - travStarted) / 1000) });
 
   return finish(c, input, splitLots(p, arcs), { stages, optimal: fairProven && volProven, gap }, started);
 }

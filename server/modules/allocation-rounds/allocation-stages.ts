@@ -154,6 +154,68 @@ export function pricingSlack(c: Ctx, inSubset: Uint8Array, kind: StageKind): num
   return PRICE_TOL[kind] * s;
 }
 
+/**
+ * A lower bound on the travel LP over every arc from the duals of a master over a subset (the
+ * Lagrangian bound of column generation), valid after any round, converged or not, so that an
+ * LP cut short by the time limit still gives an honest gap. The rows of the master are priced
+ * by its duals; what the master lacks is solved exactly on its own: an arc whose (line, farm)
+ * linking row is in the master adds its reduced cost times its capacity when negative; the arcs
+ * of a (line, farm) with no linking row yet need their visit, so per visit the best of "not
+ * made" (0) and "made" (the visit's reduced cost plus, per line, the cheapest fill of that
+ * line's link capacity from those arcs) replaces the visit column's own term.
+ */
+export function travelLowerBound(c: Ctx, m: Master, objective: number, rowDual: Float64Array, colDual: Float64Array, inSubset: Uint8Array): number {
+  const { p } = c;
+  const d = (row: number) => (row >= 0 ? rowDual[row] : 0);
+  let bound = objective;
+  // Per visit: the reduced cost of its column (in the master or not) and what the arcs of
+  // missing linking rows can gain when it is made.
+  const gain = new Float64Array(p.gfGrower.length);
+  const touched = new Uint8Array(p.gfGrower.length);
+  const coverOf = new Float64Array(p.gfGrower.length);
+  const groups = new Map<number, { rc: number; ub: number }[]>();
+  for (let l = 0; l < p.lines.length; l++) {
+    groups.clear();
+    for (let k = c.lineStart[l]; k < c.lineStart[l + 1]; k++) {
+      if (inSubset[k]) continue;
+      const gf = p.arcGf[k];
+      const link = c.arcLink[k];
+      const rc = c.travelCost[k] - d(m.rowLot[p.arcLot[k]]) - d(m.rowLine[l]) - d(m.rowGf[gf]) - d(m.rowVolume) - d(m.rowLink[link]);
+      if (p.gfLocked[gf] > 0 || m.rowLink[link] >= 0) {
+        // No visit needed (locked) or its linking row is priced by the master.
+        if (rc < 0) bound += rc * p.arcUb[k];
+        continue;
+      }
+      (groups.get(link) ?? groups.set(link, []).get(link)!).push({ rc, ub: p.arcUb[k] });
+    }
+    for (const [link, arcs] of groups) {
+      const gf = c.linkGf[link];
+      if (!touched[gf]) {
+        touched[gf] = 1;
+        gain[gf] = 0;
+      }
+      // A new visit column enters the cover row of every line of the grower at that farm.
+      if (m.colVisit[gf] < 0) coverOf[gf] += Math.max(0, d(m.rowCover[l]));
+      arcs.sort((a, b) => a.rc - b.rc);
+      let room = c.linkM[link];
+      for (const a of arcs) {
+        if (a.rc >= 0 || room <= 0) break;
+        const take = Math.min(room, a.ub);
+        gain[gf] += a.rc * take;
+        room -= take;
+      }
+    }
+  }
+  for (let gf = 0; gf < gain.length; gf++) {
+    if (!touched[gf]) continue;
+    const inMaster = m.colVisit[gf] >= 0;
+    const rcY = inMaster ? colDual[m.colVisit[gf]] : c.visitCost[gf] - coverOf[gf];
+    // The master already counted min(0, rcY) for a visit column it has.
+    bound += Math.min(0, rcY + gain[gf]) - (inMaster ? Math.min(0, rcY) : 0);
+  }
+  return bound;
+}
+
 /** Cost of one volume slack cutting: more than any volume can be worth. */
 export const slackCost = (c: Ctx) => 1 + c.p.lineNeed.reduce((s, v) => s + v, 0);
 
