@@ -31,8 +31,9 @@ import autocannon, { type Options, type Request, type Result } from 'autocannon'
 import { and, asc, eq } from 'drizzle-orm';
 import { loadConfig } from '../server/config.js';
 import { createContext } from '../server/context.js';
-import { farms, motherPlants, seasons, species, varieties } from '../server/db/schema/index.js';
+import { farms, motherPlants, seasons, species } from '../server/db/schema/index.js';
 import { freePort } from '../tests/fixtures/free-port.js';
+import { topUpPlants } from './lib/top-up-plants.js';
 
 const PLANTS = Number(process.env.BENCH_PLANTS ?? 10_000);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
@@ -62,31 +63,8 @@ async function buildDatabase(env: NodeJS.ProcessEnv) {
   const ctx = await createContext(loadConfig(env));
   const db = ctx.db;
   try {
-    // Top up the demo register to PLANTS plants, spread over farms, species and statuses (as bench:register).
-    const fs = await db.select().from(farms).orderBy(asc(farms.code));
-    const vs = await db.select({ id: varieties.id, speciesId: varieties.speciesId }).from(varieties).orderBy(asc(varieties.id));
-    const existing = (await db.select({ id: motherPlants.id }).from(motherPlants)).length;
-    const statuses = ['clean', 'clean', 'clean', 'clean', 'watch', 'hold'] as const;
-    const rows: (typeof motherPlants.$inferInsert)[] = [];
-    for (let i = existing; i < PLANTS; i++) {
-      const f = fs[i % fs.length];
-      const v = vs[(i * 7) % vs.length];
-      rows.push({
-        code: `${f.code}-B${String(i).padStart(6, '0')}`,
-        farmId: f.id,
-        speciesId: v.speciesId,
-        varietyId: v.id,
-        plantingYear: 2008 + (i % 17),
-        role: i % 3 ? 'stock_bed' : 'fruiting_bush',
-        provenance: 'bought',
-        healthStatus: statuses[i % statuses.length],
-        lastInspectedOn: `2026-${String(1 + (i % 11)).padStart(2, '0')}-15`,
-        lat: f.lat + ((i % 100) - 50) * 1e-5,
-        lon: f.lon + ((i % 77) - 38) * 1e-5,
-        bedRow: `Bed ${1 + (i % 12)}`,
-      });
-    }
-    for (let i = 0; i < rows.length; i += 1000) await db.insert(motherPlants).values(rows.slice(i, i + 1000));
+    // Top up the demo register to PLANTS plants (scripts/lib/top-up-plants.ts).
+    await topUpPlants(db, PLANTS);
     const [ribes] = await db.select({ id: species.id }).from(species).where(eq(species.scientificName, 'Ribes nigrum'));
     const [open] = await db.select({ id: seasons.id }).from(seasons).where(eq(seasons.stage, 'requests_open'));
     const [wth] = await db.select({ id: farms.id }).from(farms).where(eq(farms.code, 'WTH'));

@@ -4,16 +4,17 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { asc, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { createApp } from '../server/app.js';
 import { loadConfig } from '../server/config.js';
 import { createContext } from '../server/context.js';
-import { farms, motherPlants, species, varieties } from '../server/db/schema/index.js';
+import { species } from '../server/db/schema/index.js';
 import { listPlants } from '../server/modules/mother-plants/mother-plants.repo.js';
 import { lookbackStart } from '../shared/health-rules.js';
 import { plantListQuerySchema } from '../shared/schemas/register.js';
 import { freePort } from '../tests/fixtures/free-port.js';
 import { Client } from '../tests/fixtures/http.js';
+import { topUpPlants } from './lib/top-up-plants.js';
 
 const PLANTS = Number(process.env.BENCH_PLANTS ?? 10_000);
 const RUNS = Number(process.env.BENCH_RUNS ?? 60);
@@ -29,31 +30,8 @@ async function main() {
   const ctx = await createContext(config, { inMemory: true });
   const db = ctx.db;
   try {
-    // Top up the demo register to PLANTS plants, spread over farms, species and statuses.
-    const fs = await db.select().from(farms).orderBy(asc(farms.code));
-    const vs = await db.select({ id: varieties.id, speciesId: varieties.speciesId }).from(varieties).orderBy(asc(varieties.id));
-    const existing = (await db.select({ id: motherPlants.id }).from(motherPlants)).length;
-    const statuses = ['clean', 'clean', 'clean', 'clean', 'watch', 'hold'] as const;
-    const rows: (typeof motherPlants.$inferInsert)[] = [];
-    for (let i = existing; i < PLANTS; i++) {
-      const f = fs[i % fs.length];
-      const v = vs[(i * 7) % vs.length];
-      rows.push({
-        code: `${f.code}-B${String(i).padStart(6, '0')}`,
-        farmId: f.id,
-        speciesId: v.speciesId,
-        varietyId: v.id,
-        plantingYear: 2008 + (i % 17),
-        role: i % 3 ? 'stock_bed' : 'fruiting_bush',
-        provenance: 'bought',
-        healthStatus: statuses[i % statuses.length],
-        lastInspectedOn: `2026-${String(1 + (i % 11)).padStart(2, '0')}-15`,
-        lat: f.lat + ((i % 100) - 50) * 1e-5,
-        lon: f.lon + ((i % 77) - 38) * 1e-5,
-        bedRow: `Bed ${1 + (i % 12)}`,
-      });
-    }
-    for (let i = 0; i < rows.length; i += 1000) await db.insert(motherPlants).values(rows.slice(i, i + 1000));
+    // Top up the demo register to PLANTS plants (scripts/lib/top-up-plants.ts).
+    await topUpPlants(db, PLANTS);
     const [ribes] = await db.select({ id: species.id }).from(species).where(eq(species.scientificName, 'Ribes nigrum'));
 
     const app = await createApp(ctx);
