@@ -2,6 +2,7 @@ import { LABELS, type Hemisphere, type SeasonKind } from '../../../../shared/dom
 import { safetyCautions, seasonGuidance, shadeSideGuidance } from '../../../../shared/planner';
 import type { Species } from '../../../../shared/schemas/register';
 import { Card, CardTitle } from '../../../components/ui/card';
+import { SafetyCard } from '../../../components/ui/safety-card';
 
 /**
  * Advice beside the plan, all of it from shared/planner.ts: where shade-tolerant shrubs go
@@ -46,23 +47,7 @@ export function PlanGuidance({
           </Card>
         ) : null}
       </div>
-      <Card as="aside" tone="caution" aria-labelledby="plan-cautions-title">
-        <CardTitle>
-          <span id="plan-cautions-title" className="inline-flex items-center gap-2">
-            <svg width="18" height="18" viewBox="0 0 20 20" aria-hidden="true" focusable="false" className="text-amber">
-              <polygon points="10,1.5 19,18 1,18" fill="currentColor" />
-              <rect x="9" y="7" width="2" height="6" fill="white" />
-              <rect x="9" y="14.5" width="2" height="2" fill="white" />
-            </svg>
-            Working safely
-          </span>
-        </CardTitle>
-        <ul className="flex list-disc flex-col gap-2 pl-5">
-          {cautions.map((line) => (
-            <li key={line}>{line}</li>
-          ))}
-        </ul>
-      </Card>
+      <SafetyCard cautions={cautions} />
     </div>
   );
 }
