@@ -20,6 +20,7 @@ import { StatusBadge } from '../../../components/ui/status-badge';
 import { Pager, TableShell, td, th } from '../../../components/ui/table-shell';
 import { cn } from '../../../lib/cn';
 import { formatDay } from '../../../lib/format';
+import { ariaSort, SortButton, SortMark } from '../../../components/ui/sort-button';
 
 // Module scope keeps features and columns stable between renders, as the table expects.
 const features = tableFeatures({ rowPaginationFeature, rowSortingFeature, rowSelectionFeature });
@@ -99,16 +100,6 @@ function columnsFor(plantHref: PlantHref) {
       },
     }),
   ]);
-}
-
-function SortMark({ direction }: { direction: false | 'asc' | 'desc' }) {
-  return (
-    <svg width="12" height="12" viewBox="0 0 12 12" aria-hidden="true" focusable="false" className={cn('shrink-0', direction ? 'text-currant' : 'text-ink-faint')}>
-      {direction === 'asc' ? <polygon points="6,2 11,10 1,10" fill="currentColor" /> : null}
-      {direction === 'desc' ? <polygon points="1,2 11,2 6,10" fill="currentColor" /> : null}
-      {!direction ? <path d="M3 4.5L6 1.5 9 4.5M3 7.5L6 10.5 9 7.5" fill="none" stroke="currentColor" strokeWidth="1.5" /> : null}
-    </svg>
-  );
 }
 
 const noPlants: PlantListItem[] = [];
@@ -200,7 +191,7 @@ export function PlantsTable({
           </Select>
         </div>
         <Button variant="secondary" onClick={() => onSortChange(sort, dir === 'asc' ? 'desc' : 'asc')} aria-label={dir === 'asc' ? 'Ascending; switch to descending' : 'Descending; switch to ascending'}>
-          <SortMark direction={dir} />
+          <SortMark dir={dir} />
           {dir === 'asc' ? 'Up' : 'Down'}
         </Button>
       </div>
@@ -248,18 +239,12 @@ export function PlantsTable({
                     key={header.id}
                     scope="col"
                     className={cn(th, header.column.id === 'select' && 'w-12 px-1')}
-                    aria-sort={direction === 'asc' ? 'ascending' : direction === 'desc' ? 'descending' : undefined}
+                    aria-sort={ariaSort(direction)}
                   >
                     {header.isPlaceholder ? null : canSort ? (
-                      <button
-                        type="button"
-                        onClick={header.column.getToggleSortingHandler()}
-                        className="inline-flex min-h-touch items-center gap-1.5 rounded px-1 text-left font-semibold hover:text-ink"
-                      >
+                      <SortButton dir={direction} onClick={header.column.getToggleSortingHandler()} className="px-1 text-left">
                         <table.FlexRender header={header} />
-                        <SortMark direction={direction} />
-                        <span className="sr-only">{direction ? `, sorted ${direction === 'asc' ? 'ascending' : 'descending'}` : ', sort by this column'}</span>
-                      </button>
+                      </SortButton>
                     ) : (
                       <table.FlexRender header={header} />
                     )}

@@ -16,6 +16,7 @@ import { EmptyState } from '../../../components/ui/empty-state';
 import { TableShell, td, th } from '../../../components/ui/table-shell';
 import { cn } from '../../../lib/cn';
 import { pct, treatmentWords, whole } from '../lib/words';
+import { ariaSort, SortButton } from '../../../components/ui/sort-button';
 
 /** The interval as a bar from 0 to 100 %, the mean marked; the figures beside it say the same. */
 function IntervalBar({ row }: { row: StrikeRateRow }) {
@@ -104,14 +105,6 @@ function columnsFor(methodsOf: MethodsOf) {
   ]);
 }
 
-function SortMark({ dir }: { dir: false | 'asc' | 'desc' }) {
-  return (
-    <svg width="12" height="12" viewBox="0 0 12 12" aria-hidden="true" focusable="false" className={cn('shrink-0', dir ? 'text-currant' : 'text-ink-faint')}>
-      {dir === 'asc' ? <path d="M6 2l4 6H2z" fill="currentColor" /> : dir === 'desc' ? <path d="M6 10l4-6H2z" fill="currentColor" /> : <path d="M6 1.5l3 3.5H3zM6 10.5l3-3.5H3z" fill="currentColor" />}
-    </svg>
-  );
-}
-
 const NUMERIC = new Set(['prior', 'reports', 'rate', 'interval']);
 
 export const rowKey = (row: Pick<StrikeRateRow, 'speciesId' | 'varietyId' | 'treatment'>) => `${row.speciesId}:${row.varietyId ?? 'all'}:${row.treatment}`;
@@ -148,17 +141,11 @@ export function StrikeRateTable({ rows, methodsOf }: { rows: StrikeRateRow[]; me
                   key={header.id}
                   scope="col"
                   className={cn(th, NUMERIC.has(header.column.id) && 'text-right')}
-                  aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : undefined}
+                  aria-sort={ariaSort(dir)}
                 >
-                  <button
-                    type="button"
-                    onClick={header.column.getToggleSortingHandler()}
-                    className={cn('inline-flex min-h-touch items-center gap-1.5 rounded px-1 font-semibold hover:text-ink', NUMERIC.has(header.column.id) && 'flex-row-reverse text-right')}
-                  >
+                  <SortButton dir={dir} onClick={header.column.getToggleSortingHandler()} className={cn('px-1', NUMERIC.has(header.column.id) && 'flex-row-reverse text-right')}>
                     <table.FlexRender header={header} />
-                    <SortMark dir={dir} />
-                    <span className="sr-only">{dir ? `, sorted ${dir === 'asc' ? 'ascending' : 'descending'}` : ', sort by this column'}</span>
-                  </button>
+                  </SortButton>
                 </th>
               );
             })}

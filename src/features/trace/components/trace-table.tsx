@@ -19,6 +19,7 @@ import { TableShell, td, th } from '../../../components/ui/table-shell';
 import { cn } from '../../../lib/cn';
 import { generationLabel, generationNumber, traceRows, type TraceRow } from '../lib/trace-tree';
 import { ViaText } from './trace-tree';
+import { ariaSort, SortButton } from '../../../components/ui/sort-button';
 
 // Module scope keeps features and columns stable between renders, as the table expects.
 const features = tableFeatures({
@@ -93,14 +94,6 @@ const columns = column.columns([
   }),
 ]);
 
-function SortMark({ dir }: { dir: false | 'asc' | 'desc' }) {
-  return (
-    <svg width="12" height="12" viewBox="0 0 12 12" aria-hidden="true" focusable="false" className={cn('shrink-0', dir ? 'text-currant' : 'text-ink-faint')}>
-      {dir === 'asc' ? <path d="M6 2l4 6H2z" fill="currentColor" /> : dir === 'desc' ? <path d="M6 10l4-6H2z" fill="currentColor" /> : <path d="M6 1.5l3 3.5H3zM6 10.5l3-3.5H3z" fill="currentColor" />}
-    </svg>
-  );
-}
-
 /** Every plant of the trace in one sortable table, oldest generation first. */
 export function TraceTable({ trace }: { trace: Trace }) {
   const data = useMemo(() => traceRows(trace), [trace]);
@@ -123,13 +116,11 @@ export function TraceTable({ trace }: { trace: Trace }) {
               const dir = header.column.getIsSorted();
               const label = typeof header.column.columnDef.header === 'string' ? header.column.columnDef.header : header.id;
               return (
-                <th key={header.id} scope="col" className={th} aria-sort={header.column.getCanSort() ? (dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none') : undefined}>
+                <th key={header.id} scope="col" className={th} aria-sort={header.column.getCanSort() ? ariaSort(dir, 'none') : undefined}>
                   {header.column.getCanSort() ? (
-                    <button type="button" onClick={header.column.getToggleSortingHandler()} className="relative inline-flex min-h-touch items-center gap-1.5 rounded text-left font-semibold hover:text-ink">
+                    <SortButton dir={dir} onClick={header.column.getToggleSortingHandler()} className="relative text-left">
                       {label}
-                      <SortMark dir={dir} />
-                      <span className="sr-only">{dir ? `, sorted ${dir === 'asc' ? 'ascending' : 'descending'}` : ', sort by this column'}</span>
-                    </button>
+                    </SortButton>
                   ) : (
                     label
                   )}

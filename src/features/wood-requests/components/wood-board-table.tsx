@@ -17,6 +17,7 @@ import { StatusBadge, type StatusKind } from '../../../components/ui/status-badg
 import { TableShell, td, th } from '../../../components/ui/table-shell';
 import { cn } from '../../../lib/cn';
 import { km } from '../lib/words';
+import { ariaSort, SortButton } from '../../../components/ui/sort-button';
 
 /** How a board row reads: scarce when more is asked than offered (pressure above 1). */
 export function boardStatus(row: BoardRow): StatusKind | null {
@@ -84,14 +85,6 @@ const columns = column.columns([
     cell: (info) => km(info.row.original.nearestKm),
   }),
 ]);
-
-function SortMark({ dir }: { dir: false | 'asc' | 'desc' }) {
-  return (
-    <svg width="12" height="12" viewBox="0 0 12 12" aria-hidden="true" focusable="false" className={cn('shrink-0', dir ? 'text-currant' : 'text-ink-faint')}>
-      {dir === 'asc' ? <path d="M6 2l4 6H2z" fill="currentColor" /> : dir === 'desc' ? <path d="M6 10l4-6H2z" fill="currentColor" /> : <path d="M6 1.5l3 3.5H3zM6 10.5l3-3.5H3z" fill="currentColor" />}
-    </svg>
-  );
-}
 
 const NUMERIC = new Set(['offered', 'asked', 'farms', 'nearest']);
 
@@ -187,17 +180,11 @@ function WideTable({ table, hasPlace }: { table: ReturnType<typeof useBoardTable
                   key={header.id}
                   scope="col"
                   className={cn(th, NUMERIC.has(header.column.id) && 'text-right')}
-                  aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}
+                  aria-sort={ariaSort(dir, 'none')}
                 >
-                  <button
-                    type="button"
-                    onClick={header.column.getToggleSortingHandler()}
-                    className="inline-flex min-h-touch items-center gap-1.5 rounded font-semibold hover:text-ink"
-                  >
+                  <SortButton dir={dir} onClick={header.column.getToggleSortingHandler()}>
                     {label}
-                    <SortMark dir={dir} />
-                    <span className="sr-only">{dir ? `, sorted ${dir === 'asc' ? 'ascending' : 'descending'}` : ', sort'}</span>
-                  </button>
+                  </SortButton>
                 </th>
               );
             })}
