@@ -6,7 +6,7 @@ import { fromNodeHeaders } from 'better-auth/node';
 import express, { type Request, Router, type Response } from 'express';
 import { signInSchema, signUpSchema } from '../../shared/schemas/members.js';
 import type { AppContext } from '../context.js';
-import { fromZod, HttpError } from '../lib/http-error.js';
+import { fromZod, HttpError, unstorableTextError } from '../lib/http-error.js';
 
 const REFUSALS: Record<string, (m: string) => HttpError> = {
   USER_ALREADY_EXISTS: () =>
@@ -70,12 +70,16 @@ export function authFormsRouter(ctx: AppContext): Router {
   r.post('/sign-up/email', async (req, res) => {
     const parsed = signUpSchema.safeParse(req.body ?? {});
     if (!parsed.success) return sendError(res, fromZod(parsed.error, 'form'));
+    const unstorable = unstorableTextError(parsed.data, 'form');
+    if (unstorable) return sendError(res, unstorable);
     await relay(res, await viaHandler(ctx, req, parsed.data));
   });
 
   r.post('/sign-in/email', async (req, res) => {
     const parsed = signInSchema.safeParse(req.body ?? {});
     if (!parsed.success) return sendError(res, fromZod(parsed.error, 'form'));
+    const unstorable = unstorableTextError(parsed.data, 'form');
+    if (unstorable) return sendError(res, unstorable);
     const body = { ...parsed.data, rememberMe: (req.body as { rememberMe?: boolean }).rememberMe !== false };
     await relay(res, await viaHandler(ctx, req, body));
   });

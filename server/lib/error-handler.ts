@@ -38,7 +38,8 @@ export function toHttpError(err: unknown): HttpError | undefined {
 const CONSTRAINT_FIELDS: Record<string, [string, string]> = {
   user_email_unique: ['email', 'already registered'],
   farms_code_unique: ['code', 'already used by another farm'],
-  species_scientific_name_unique: ['scientificName', 'already in the list'],
+  // drizzle names a .unique() column's constraint after the property, camelCase and all.
+  species_scientificName_unique: ['scientificName', 'already in the list'],
   varieties_species_name_unique: ['name', 'already a variety of this species'],
   mother_plants_code_unique: ['code', 'already used'],
   pests_code_unique: ['code', 'already in the catalogue'],
@@ -46,6 +47,19 @@ const CONSTRAINT_FIELDS: Record<string, [string, string]> = {
   wood_offers_season_plant_unique: ['plantId', 'already offered this season'],
   wood_requests_season_grower_unique: ['seasonId', 'you already have a request this season'],
   wood_offers_reserved_check: ['cuttings', 'more than the plant offers'],
+  // Checks a value can still break after the form's own check: numeric columns round (0.04 km is
+  // stored as 0.0), and an edit may send one half of a pair the stored row completes.
+  wood_requests_distance_check: ['maxDistanceKm', 'must be at least 0.1 km (it is kept to one decimal) and at most 1000 km'],
+  species_cutting_length_check: ['defaultCuttingLengthCm', 'must be at least 0.1 cm (it is kept to one decimal) and at most 200 cm'],
+  species_cutting_diameter_check: ['defaultCuttingDiameterMm', 'must be at least 0.1 mm (it is kept to one decimal)'],
+  species_soft_tip_check: ['softTipCm', 'cannot be negative'],
+  species_prior_check: ['strikeRatePrior', 'must be between 0.001 and 0.999 (it is kept to three decimals)'],
+  species_prior_strength_check: ['priorStrength', 'must be more than 0'],
+  species_first_crop_check: ['firstCropYears', 'must be between 1 and 15'],
+  mother_plants_position_check: ['lat', 'give both latitude and longitude, or neither'],
+  mother_plants_year_check: ['plantingYear', 'must be between 1900 and 2200'],
+  strike_reports_counts_check: ['rooted', 'cannot be more than the cuttings stuck'],
+  pickup_windows_order_check: ['to', 'the window ends before it starts'],
 };
 
 function constraintField(pg: PgError): Record<string, string> | undefined {

@@ -38,3 +38,51 @@ export function fromZod(error: ZodError, where: string): HttpError {
     .join('; ');
   return badRequest(`Check the ${where}: ${list}`, fields);
 }
+
+/**
+ * PostgreSQL text cannot hold a NUL character, and half of a surrogate pair (which JSON can
+ * carry as "\ud800") is not Unicode at all: the database would refuse either with an error
+ * that names no field, or store a replacement character. Checked on everything route() parses.
+ */
+const UNSTORABLE = /\u0000|\p{Cs}/u;
+const UNSTORABLE_MESSAGE = 'contains a character that cannot be stored (a NUL or a broken Unicode character)';
+export const isStorableText = (s: string) => !UNSTORABLE.test(s);
+
+type Where = { up: Where | null; key: string | number } | null;
+const pathOf = (w: Where) => {
+  const keys: (string | number)[] = [];
+  for (let x = w; x; x = x.up) keys.push(x.key);
+  return keys.length ? keys.reverse().join('.') : '_';
+};
+
+export function unstorableTextFields(value: unknown): Record<string, string> {
+  const fields: Record<string, string> = {};
+  // Iterative, with paths built only for what is reported: a JSON value may nest deeper than the call stack goes.
+  const stack: { v: unknown; at: Where }[] = [{ v: value, at: null }];
+  while (stack.length) {
+    const { v, at } = stack.pop()!;
+    if (typeof v === 'string') {
+      if (UNSTORABLE.test(v)) fields[pathOf(at)] ??= UNSTORABLE_MESSAGE;
+    } else if (Array.isArray(v)) {
+      v.forEach((x, i) => stack.push({ v: x, at: { up: at, key: i } }));
+    } else if (v && typeof v === 'object' && [Object.prototype, null].includes(Object.getPrototypeOf(v))) {
+      for (const [k, x] of Object.entries(v)) {
+        if (UNSTORABLE.test(k)) fields[pathOf({ up: at, key: k })] ??= UNSTORABLE_MESSAGE;
+        stack.push({ v: x, at: { up: at, key: k } });
+      }
+    }
+  }
+  return fields;
+}
+
+/** A 400 naming each field whose text cannot be stored, or undefined when all can. */
+export function unstorableTextError(value: unknown, where: string): HttpError | undefined {
+  const fields = unstorableTextFields(value);
+  const keys = Object.keys(fields);
+  return keys.length ? badRequest(`Check the ${where}: ${keys.join(', ')} ${UNSTORABLE_MESSAGE}`, fields) : undefined;
+}
+
+export function assertStorableText(value: unknown, where: string): void {
+  const e = unstorableTextError(value, where);
+  if (e) throw e;
+}

@@ -4,7 +4,7 @@
 // read-only; this wrapper is the simpler shape of the same idea.)
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import type { z, ZodType } from 'zod';
-import { fromZod } from './http-error.js';
+import { assertStorableText, fromZod } from './http-error.js';
 
 type Schemas = { params?: ZodType; query?: ZodType; body?: ZodType };
 type Parsed<S extends Schemas> = {
@@ -35,5 +35,6 @@ function parse(schema: ZodType | undefined, value: unknown, where: string) {
   if (!schema) return value;
   const r = schema.safeParse(value);
   if (!r.success) throw fromZod(r.error, where);
+  assertStorableText(r.data, where);
   return r.data;
 }

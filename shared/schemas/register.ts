@@ -82,6 +82,11 @@ export const plantUpdateSchema = z
   .partial()
   .strict()
   .superRefine((v, ctx) => {
+    // One half of a position would pair with the stored other half: send both, or neither.
+    if (('lat' in v) !== ('lon' in v)) {
+      ctx.addIssue({ code: 'custom', path: ['lat' in v ? 'lon' : 'lat'], message: 'Send latitude and longitude together' });
+      return;
+    }
     const touched = 'lat' in v || 'lon' in v;
     if (touched && (v.lat == null) !== (v.lon == null)) {
       ctx.addIssue({ code: 'custom', path: [v.lat == null ? 'lat' : 'lon'], message: 'Give both latitude and longitude, or neither' });
@@ -220,7 +225,8 @@ export type PlantDetail = PlantListItem & {
 
 // Species and varieties -------------------------------------------------------------
 
-export const speciesSchema = z.object({
+/** A species' fields without defaults: an edit must not put back a default for a field it leaves out. */
+const speciesFields = z.object({
   scientificName: z.string({ error: 'Scientific name is required' }).trim().min(3, 'Scientific name is at least 3 characters').max(120),
   commonName: z.string({ error: 'Common name is required' }).trim().min(2, 'Common name is at least 2 characters').max(120),
   genus: z.string({ error: 'Genus is required' }).trim().min(2, 'Genus is at least 2 characters').max(60),
@@ -229,21 +235,36 @@ export const speciesSchema = z.object({
     .min(1, 'Choose at least one propagation method'),
   defaultCuttingLengthCm: z.number({ error: 'Cutting length must be a number' }).gt(0, 'Cutting length must be more than 0').max(200, 'Cutting length is at most 200 cm'),
   defaultCuttingDiameterMm: z.number({ error: 'Cutting diameter must be a number' }).gt(0, 'Diameter must be more than 0').max(50, 'Diameter is at most 50 mm'),
-  softTipCm: z.number({ error: 'Soft tip must be a number' }).min(0, 'Soft tip cannot be negative').max(100).default(10),
+  softTipCm: z.number({ error: 'Soft tip must be a number' }).min(0, 'Soft tip cannot be negative').max(100),
   strikeRatePrior: z.number({ error: 'Strike rate must be a number' }).gt(0, 'Strike rate is between 0 and 1').lt(1, 'Strike rate is between 0 and 1'),
-  priorStrength: z.number().int().min(1).max(1000).default(20),
-  shadeTolerant: z.boolean().default(false),
-  firstCropYears: z.number().int().min(1).max(15).default(3),
+  priorStrength: z.number().int().min(1).max(1000),
+  shadeTolerant: z.boolean(),
+  firstCropYears: z.number().int().min(1).max(15),
   restrictionNote: z.string().trim().max(2000).nullable().optional(),
   notes: z.string().trim().max(4000).nullable().optional(),
 });
+
+export const speciesSchema = speciesFields.extend({
+  softTipCm: speciesFields.shape.softTipCm.default(10),
+  priorStrength: speciesFields.shape.priorStrength.default(20),
+  shadeTolerant: speciesFields.shape.shadeTolerant.default(false),
+  firstCropYears: speciesFields.shape.firstCropYears.default(3),
+});
 export type SpeciesInput = z.input<typeof speciesSchema>;
+
+const somethingToChange = (v: object) => Object.keys(v).length > 0;
+
+/** Edit a species: any of its fields, at least one. */
+export const speciesPatchSchema = speciesFields.partial().strict().refine(somethingToChange, 'Send at least one field to change');
 
 export const varietySchema = z.object({
   speciesId: uuidParam,
   name: z.string({ error: 'Variety name is required' }).trim().min(2, 'Variety name is at least 2 characters').max(120, 'Variety name is at most 120 characters'),
   description: z.string().trim().max(2000).nullable().optional(),
 });
+
+/** Edit a variety: name or description (a variety stays with its species), at least one. */
+export const varietyPatchSchema = varietySchema.omit({ speciesId: true }).partial().strict().refine(somethingToChange, 'Send at least one field to change');
 
 export type Variety = { id: string; speciesId: string; name: string; description: string | null; plantCount: number };
 

@@ -118,7 +118,17 @@ export const requestLineSchema = z.object({
   cuttings: z.number({ error: 'Cuttings must be a number' }).int('Cuttings is a whole number').min(1, 'Ask for at least 1 cutting').max(100000, 'At most 100000 cuttings on one line'),
   substitutesAllowed: z.boolean().default(false),
   treatment: z.enum(TREATMENTS, { error: 'Treatment must be none, willow, hormone or both' }).default('none'),
-  plan: z.record(z.string(), z.unknown()).nullable().optional(),
+  /** The planner's figures behind the line (planRecord in the client): a few named numbers and words. */
+  plan: z
+    .record(z.string(), z.unknown())
+    .refine(
+      (p) =>
+        Object.keys(p).length <= 20 &&
+        Object.entries(p).every(([k, v]) => k.length <= 40 && (v === null || typeof v === 'number' || typeof v === 'boolean' || (typeof v === 'string' && v.length <= 200))),
+      'A plan holds at most 20 named numbers or short words',
+    )
+    .nullable()
+    .optional(),
 });
 
 export const woodRequestSchema = z.object({

@@ -22,7 +22,7 @@ import {
 import type { Actor } from '../../auth/guards.js';
 import type { Db, DbOrTx } from '../../db/client.js';
 import { farms, motherPlants, species, varieties } from '../../db/schema/index.js';
-import { HttpError } from '../../lib/http-error.js';
+import { HttpError, isStorableText, unstorableTextFields } from '../../lib/http-error.js';
 import { insertAuditRows } from '../audit/audit.repo.js';
 import { insertPlants, nextPlantNumber } from './mother-plants.repo.js';
 import { exportRows } from './mother-plants.service.js';
@@ -215,7 +215,12 @@ async function checkRows(db: DbOrTx, a: Actor, file: FileRow[]) {
         seen.add(column);
         errors.push({ row, column: column || null, message: issue.message });
       }
-    } else valid.push({ row, v: r.data });
+    } else {
+      // A NUL or half a surrogate pair would make the database refuse the whole import.
+      const unstorable = Object.keys(unstorableTextFields(r.data));
+      for (const column of unstorable) errors.push({ row, column, message: 'This cell holds a character that cannot be stored (a NUL or a broken Unicode character).' });
+      if (!unstorable.length) valid.push({ row, v: r.data });
+    }
   }
 
   // Reference lists are small (tens of farms and species, hundreds of varieties): load them once.
@@ -235,7 +240,8 @@ async function checkRows(db: DbOrTx, a: Actor, file: FileRow[]) {
   const fileCodeRows = new Map<string, number>();
   for (const { row, cells } of file) {
     const code = (cells.code ?? '').trim().toUpperCase();
-    if (code && !fileCodeRows.has(code)) fileCodeRows.set(code, row);
+    // A code the database cannot hold is no plant's code (its row is already refused), and may not be looked up.
+    if (code && isStorableText(code) && !fileCodeRows.has(code)) fileCodeRows.set(code, row);
   }
   const inDb = await existingCodes(db, [
     ...new Set([...fileCodeRows.keys(), ...valid.map(({ v }) => v.parent_code).filter((c): c is string => !!c)]),

@@ -7,7 +7,7 @@ import { z } from 'zod';
 import { uuidParam } from '../../../shared/schemas/common.js';
 import { actorOf, requireActive } from '../../auth/guards.js';
 import type { AppContext } from '../../context.js';
-import { badRequest, fromZod, HttpError, notFound } from '../../lib/http-error.js';
+import { assertStorableText, badRequest, fromZod, HttpError, notFound } from '../../lib/http-error.js';
 import { route } from '../../lib/route.js';
 import {
   addPhoto,
@@ -51,7 +51,8 @@ function fromMulter(err: unknown): HttpError {
       case 'LIMIT_FIELD_VALUE':
         return badRequest('A form field is too long.', { [err.field ?? '_']: 'too long' });
       default:
-        return badRequest(`The upload form was refused: ${err.message}.`);
+        // Too many parts or fields, a part without a name: the form as a whole ('_') unless multer names the field.
+        return badRequest(`The upload form was refused: ${err.message}.`, { [err.field || '_']: err.message });
     }
   }
   // busboy's own complaints (cut-off body, broken part headers) are the client's.
@@ -81,6 +82,7 @@ export function photosRouter(ctx: AppContext): Router {
         const buffer = await receivePhoto(req, res);
         const fields = photoFieldsSchema.safeParse(req.body ?? {});
         if (!fields.success) throw fromZod(fields.error, 'form');
+        assertStorableText(fields.data, 'form');
         return addPhoto(deps, actorOf(req), params.id, buffer, fields.data);
       },
       { status: 201 },

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 import { uuidParam } from '../../../shared/schemas/common.js';
-import { speciesSchema, varietySchema } from '../../../shared/schemas/register.js';
+import { speciesPatchSchema, speciesSchema, varietyPatchSchema, varietySchema } from '../../../shared/schemas/register.js';
 import { actorOf, requireActive, requireCoordinator } from '../../auth/guards.js';
 import type { AppContext } from '../../context.js';
 import { species, varieties } from '../../db/schema/index.js';
@@ -36,7 +36,7 @@ export function speciesRouter(ctx: AppContext): Router {
   r.patch(
     '/:id',
     requireCoordinator(ctx),
-    route({ params: idParams, body: speciesSchema.partial().strict() }, async ({ params, body }, req) => {
+    route({ params: idParams, body: speciesPatchSchema }, async ({ params, body }, req) => {
       return ctx.db.transaction(async (tx) => {
         const before = await findSpecies(tx, params.id);
         if (!before) throw notFound('That species');
@@ -58,7 +58,7 @@ export function speciesRouter(ctx: AppContext): Router {
   r.patch(
     '/varieties/:id',
     requireCoordinator(ctx),
-    route({ params: idParams, body: varietySchema.omit({ speciesId: true }).partial().strict() }, async ({ params, body }) => {
+    route({ params: idParams, body: varietyPatchSchema }, async ({ params, body }) => {
       const [row] = await ctx.db.update(varieties).set(body).where(eq(varieties.id, params.id)).returning();
       if (!row) throw notFound('That variety');
       return row;
