@@ -8,7 +8,7 @@
 // of the demo cooperative; targets belong to it unless a row says otherwise.
 //   anon         no session cookie
 //   pending      signed up, not admitted (demo: Chris Hallam, status pending)
-//   suspended    signed in as lead of WTH, then suspended by the coordinator (still sends the cookie)
+//   suspended    signed in as lead of WTH, then suspended by the coordinator, which ends their sessions (still sends the cookie)
 //   member       an admitted grower on no farm (demo: Sam Okafor, grower@heelwood.test)
 //   otherLead    lead of another farm (demo: Megan Pritchard, lead of ARB)
 //   hand         farm hand of WTH (demo: Kasia Nowak)
@@ -229,16 +229,16 @@ export const MATRIX: MatrixRow[] = [
     method: 'POST',
     path: '/api/auth/delete-user',
     call: () => ({ body: {} }),
-    expect: { ...everyone(404), anon: 401 },
-    why: 'account deletion is not enabled (better-auth answers 404): members are suspended, never deleted',
+    expect: { ...everyone(404), anon: 401, suspended: 401 },
+    why: 'account deletion is not enabled (better-auth answers 404): members are suspended, never deleted; a suspension ended the session (members.service.ts)',
   },
   {
     method: 'POST',
     path: '/api/auth/change-email',
     call: (fx) => ({ body: { newEmail: `moved-${fx.tag()}@example.org` } }),
-    expect: { ...everyone(400), anon: 401 },
+    expect: { ...everyone(400), anon: 401, suspended: 401 },
     says: { 400: /CHANGE_EMAIL_DISABLED/ },
-    why: 'changing the e-mail is not enabled',
+    why: 'changing the e-mail is not enabled; a suspension ended the session (members.service.ts)',
   },
 
   // Members and farms -----------------------------------------------------------------------

@@ -2,7 +2,7 @@
 // password reset by real e-mail, the error shape, migrations and seed run once.
 import { count, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { auditLog, farmMemberships, farms, user } from '../../server/db/schema/index.js';
+import { auditLog, farmMemberships, farms, session, user } from '../../server/db/schema/index.js';
 import { Client } from '../fixtures/http.js';
 import { waitForMail } from '../fixtures/mailbox.js';
 import { startTestApp, type TestApp } from '../fixtures/test-app.js';
@@ -206,6 +206,12 @@ describe('roles', () => {
     const r = await coordinator.client.patch(`/api/members/${member.id}`, { status: 'suspended', reason: 'left the cooperative' });
     expect(r.status).toBe(200);
     expect((await member.client.get('/api/me')).status).toBe(401);
+    // Signed out everywhere: no session of theirs is left, so better-auth's own get-session,
+    // once its one-minute signed cookie is gone, knows nobody.
+    expect(await app.ctx.db.select().from(session).where(eq(session.userId, member.id))).toEqual([]);
+    const tokenOnly = await fetch(`${app.url}/api/auth/get-session`, { headers: { cookie: member.client.cookieHeader().split('; ').filter((c) => !/session_data=/.test(c)).join('; ') } });
+    expect(tokenOnly.status).toBe(200);
+    expect(await tokenOnly.json()).toBeNull();
     const again = await new Client(app.url).post('/api/auth/sign-in/email', { email: member.email, password: TEST_PASSWORD });
     expect(again.status).toBe(403);
     expect(again.body.error.message).toMatch(/suspended/);

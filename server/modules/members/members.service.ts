@@ -1,7 +1,9 @@
 // Admitting, suspending and re-roling members. A coordinator cannot lock the cooperative
 // out of itself: the last active coordinator keeps that role and status.
 import type { MemberPatch } from '../../../shared/schemas/members.js';
+import { eq } from 'drizzle-orm';
 import type { Db } from '../../db/client.js';
+import { session } from '../../db/schema/index.js';
 import { conflict, notFound } from '../../lib/http-error.js';
 import { writeAudit } from '../audit/audit.repo.js';
 import { countActiveCoordinators, findMember, updateUser } from './members.repo.js';
@@ -23,6 +25,12 @@ export async function patchMember(db: Db, actorId: string, id: string, patch: Me
       ...(patch.status ? { status: patch.status } : {}),
       ...(patch.role ? { role: patch.role } : {}),
     });
+    // Suspending signs the member out everywhere: their sessions go with the same commit.
+    // (Our routes refuse a suspended member at once anyway, guards.ts; this ends the sessions
+    // for better-auth's own endpoints too, which trust its signed cookie for at most a minute.)
+    if (patch.status === 'suspended' && before.status !== 'suspended') {
+      await tx.delete(session).where(eq(session.userId, id));
+    }
     await writeAudit(tx, {
       actorId,
       entity: 'user',
