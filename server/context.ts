@@ -4,6 +4,7 @@ import path from 'node:path';
 import type { Config } from './config.js';
 import { type Database, type Db, openDatabase } from './db/client.js';
 import { lockDataDir } from './db/data-dir-lock.js';
+import { startReadCache } from './lib/read-cache.js';
 import { seedIfEmpty, type SeedOutcome } from './db/first-start.js';
 import { type Auth, createAuth } from './auth/auth.js';
 import { type MailCatcher, startMailCatcher } from './modules/mail/mail-catcher.js';
@@ -54,6 +55,7 @@ export async function createContext(config: Config, opts: ContextOptions = {}): 
   const closers: Array<() => Promise<void> | void> = [() => database.close(), () => lock?.release()];
   try {
     await database.migrate();
+    await startReadCache(database);
     const seed = config.seedDemo ? await seedIfEmpty(database.db) : ({ seeded: false, reason: 'SEED_DEMO is off' } as const);
     let catcher: MailCatcher | undefined;
     if (!config.smtpUrl) {

@@ -18,6 +18,8 @@ export type Database = {
   close(): Promise<void>;
   /** A consistent copy of an embedded database (PGlite only): backups and test templates. */
   dump?(): Promise<Blob>;
+  /** Notifications of this database, delivered on commit (PGlite only: read-cache.ts). */
+  listen?(channel: string, onNotify: () => void): Promise<unknown>;
 };
 
 export type DatabaseOptions = {
@@ -55,5 +57,6 @@ export async function openDatabase(opts: DatabaseOptions): Promise<Database> {
     migrate: () => migrate(db, { migrationsFolder: opts.migrationsFolder }),
     close: () => client.close(),
     dump: () => client.dumpDataDir('gzip'),
+    listen: (channel, onNotify) => client.listen(channel, onNotify),
   };
 }

@@ -19,7 +19,7 @@ export function bundlesRouter(ctx: AppContext): Router {
   r.get(
     '/seasons/:seasonId/my-pickups',
     active,
-    route({ params: z.object({ seasonId: uuidParam }) }, async ({ params }, req) => ({ slip: await pickupSlip(ctx.db, actorOf(req).id, params.seasonId) })),
+    route({ params: z.object({ seasonId: uuidParam }) }, async ({ params }, req) => ({ slip: await pickupSlip(ctx.db, actorOf(req).id, params.seasonId) }), { cacheIn: ctx.db }),
   );
   r.get(
     '/seasons/:seasonId/farms/:farmId/collections',
@@ -29,7 +29,7 @@ export function bundlesRouter(ctx: AppContext): Router {
       if (!isCoordinator(a) && !farmRoleOf(a, params.farmId)) throw forbidden('Only the people of that farm, or a coordinator, see its collections.');
       const items = await farmCollections(ctx.db, params.farmId, params.seasonId);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.post(
     '/bundles/:bundleId/collection',

@@ -18,7 +18,7 @@ export function farmsRouter(ctx: AppContext): Router {
     route({}, async () => {
       const items = await listFarms(ctx.db);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.put(
     '/:farmId/members/:userId',

@@ -16,7 +16,7 @@ export function figuresRouter(ctx: AppContext): Router {
   r.get(
     '/seasons/:id/figures',
     requireActive(ctx),
-    route({ params: idParams }, ({ params }, req) => seasonFigures(ctx.db, actorOf(req), params.id)),
+    route({ params: idParams }, ({ params }, req) => seasonFigures(ctx.db, actorOf(req), params.id), { cacheIn: ctx.db }),
   );
   r.get(
     '/seasons/:id/figures.csv',

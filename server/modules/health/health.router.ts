@@ -16,7 +16,7 @@ export function healthRouter(ctx: AppContext): Router {
     route({}, async () => {
       const items = await ctx.db.select().from(pests).orderBy(asc(pests.name));
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.post(
     '/pests',
@@ -26,7 +26,7 @@ export function healthRouter(ctx: AppContext): Router {
   r.get(
     '/health/overview',
     requireCoordinator(ctx),
-    route({}, () => healthOverview(ctx.db)),
+    route({}, () => healthOverview(ctx.db), { cacheIn: ctx.db }),
   );
   // Any active member may report what they saw in the district; the coordinator reads it.
   r.post(

@@ -32,19 +32,28 @@ function viewerKey(a: Actor): string {
 }
 
 export type FeaturesCache = {
-  get(db: Db, a: Actor, filters: object, build: () => Promise<unknown>): Promise<SerializedBody>;
+  /** `state`: the request's database state (read-cache.ts); while it stays the same, so does the counter. */
+  get(db: Db, a: Actor, filters: object, build: () => Promise<unknown>, state?: string): Promise<SerializedBody>;
 };
 
 /** One cache per app (tests run several apps, on different databases, in one process). */
 export function createFeaturesCache(): FeaturesCache {
   let version = -1;
+  /** The request state at which `version` was last read. */
+  let counterState: string | undefined;
   // Promises, so that requests arriving while a variant is being built wait for that build.
   const entries = new Map<string, Promise<SerializedBody>>();
   return {
-    async get(db, a, filters, build) {
-      // Read the counter before the data: whatever is built next is at least this new.
-      const [row] = await db.select({ version: dataVersions.version }).from(dataVersions).where(eq(dataVersions.name, 'register'));
-      const current = row?.version;
+    async get(db, a, filters, build, state) {
+      // Read the counter before the data: whatever is built next is at least this new. The
+      // same database state has the same counter: read it once per state.
+      let current: number | undefined;
+      if (state !== undefined && state === counterState) current = version;
+      else {
+        const [row] = await db.select({ version: dataVersions.version }).from(dataVersions).where(eq(dataVersions.name, 'register'));
+        current = row?.version;
+        if (state !== undefined && current !== undefined && current >= version) counterState = state;
+      }
       // No counter row, or a request that read the counter before a newer one was seen: build without the cache.
       if (current === undefined || current < version) return serialize(await build());
       if (current > version) {

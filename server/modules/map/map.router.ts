@@ -81,7 +81,7 @@ export function mapRouter(ctx: AppContext): Router {
     requireActive(ctx),
     route({ query: mapFeaturesQuerySchema }, async ({ query }, req, res) => {
       const a = actorOf(req);
-      const { body, etag } = await featuresCache.get(ctx.db, a, query, () => mapFeatures(ctx.db, a, query));
+      const { body, etag } = await featuresCache.get(ctx.db, a, query, () => mapFeatures(ctx.db, a, query), req.dbState);
       // An ETag set here spares Express hashing 1.6 MB again; a browser holding it gets a 304.
       res.set('ETag', etag).type('json').send(body);
     }),

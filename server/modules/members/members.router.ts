@@ -15,7 +15,7 @@ export function meRouter(ctx: AppContext): Router {
     route({}, (_i, req) => {
       const { farms, ...user } = actorOf(req);
       return { user, farms };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   return r;
 }
@@ -25,7 +25,7 @@ export function membersRouter(ctx: AppContext): Router {
   r.use(requireCoordinator(ctx));
   r.get(
     '/',
-    route({ query: memberListQuerySchema }, ({ query }) => listMembers(ctx.db, query)),
+    route({ query: memberListQuerySchema }, ({ query }) => listMembers(ctx.db, query), { cacheIn: ctx.db }),
   );
   r.patch(
     '/:id',

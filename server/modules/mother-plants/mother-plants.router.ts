@@ -15,7 +15,7 @@ export function motherPlantsRouter(ctx: AppContext): Router {
 
   r.get(
     '/',
-    route({ query: plantListQuerySchema }, ({ query }, req) => listForActor(ctx.db, actorOf(req), query)),
+    route({ query: plantListQuerySchema }, ({ query }, req) => listForActor(ctx.db, actorOf(req), query), { cacheIn: ctx.db }),
   );
   r.post(
     '/',
@@ -26,7 +26,7 @@ export function motherPlantsRouter(ctx: AppContext): Router {
   );
   r.get(
     '/:id',
-    route({ params: idParams }, ({ params }, req) => plantDetail(ctx.db, actorOf(req), params.id)),
+    route({ params: idParams }, ({ params }, req) => plantDetail(ctx.db, actorOf(req), params.id), { cacheIn: ctx.db }),
   );
   r.patch(
     '/:id',

@@ -24,7 +24,7 @@ export function seasonsRouter(ctx: AppContext): Router {
     route({}, async () => {
       const items = await listSeasons(ctx.db);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.get(
     '/suggest',
@@ -46,7 +46,7 @@ export function seasonsRouter(ctx: AppContext): Router {
   r.get(
     '/:id',
     requireActive(ctx),
-    route({ params: idParams }, async ({ params }) => (await getSeason(ctx.db, params.id)) ?? Promise.reject(notFound('That season'))),
+    route({ params: idParams }, async ({ params }) => (await getSeason(ctx.db, params.id)) ?? Promise.reject(notFound('That season')), { cacheIn: ctx.db }),
   );
   r.post(
     '/',

@@ -22,7 +22,7 @@ export function speciesRouter(ctx: AppContext): Router {
     route({}, async () => {
       const items = await listSpecies(ctx.db);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.post(
     '/',

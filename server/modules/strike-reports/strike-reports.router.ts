@@ -18,7 +18,7 @@ export function strikeReportsRouter(ctx: AppContext): Router {
   r.get(
     '/my/bundles',
     active,
-    route({}, (_input, req) => myBundles(ctx.db, actorOf(req))),
+    route({}, (_input, req) => myBundles(ctx.db, actorOf(req)), { cacheIn: ctx.db }),
   );
   r.post(
     '/bundles/:bundleId/strike-reports',
@@ -43,7 +43,7 @@ export function strikeReportsRouter(ctx: AppContext): Router {
     route({ query: strikeRatesQuerySchema }, async ({ query }) => {
       const items = await strikeRateTable(ctx.db, query);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   return r;
 }

@@ -16,12 +16,12 @@ export function traceRouter(ctx: AppContext): Router {
   r.get(
     '/mother-plants/:id/trace',
     requireActive(ctx),
-    route({ params: idParams }, ({ params }, req) => traceOf(ctx.db, actorOf(req), params.id)),
+    route({ params: idParams }, ({ params }, req) => traceOf(ctx.db, actorOf(req), params.id), { cacheIn: ctx.db }),
   );
   r.get(
     '/mother-plants/:id/exposure',
     requireCoordinator(ctx),
-    route({ params: idParams, query: exposureQuerySchema }, ({ params, query }) => exposureOf(ctx.db, params.id, query.findingId)),
+    route({ params: idParams, query: exposureQuerySchema }, ({ params, query }) => exposureOf(ctx.db, params.id, query.findingId), { cacheIn: ctx.db }),
   );
   r.post(
     '/mother-plants/:id/notices',

@@ -17,7 +17,7 @@ export function woodOffersRouter(ctx: AppContext): Router {
     route({ params: z.object({ seasonId: uuidParam, farmId: uuidParam }) }, async ({ params }, req) => {
       const items = await farmOffers(ctx.db, actorOf(req), params.seasonId, params.farmId);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.put(
     '/seasons/:seasonId/offers/:plantId',
@@ -39,7 +39,7 @@ export function woodOffersRouter(ctx: AppContext): Router {
     route({ params: z.object({ seasonId: uuidParam }), query: z.object({ farmId: uuidParam.optional() }) }, async ({ params, query }) => {
       const items = await listWindows(ctx.db, params.seasonId, query.farmId);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.post(
     '/seasons/:seasonId/farms/:farmId/windows',

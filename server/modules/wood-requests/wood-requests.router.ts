@@ -12,7 +12,7 @@ const seasonParams = z.object({ seasonId: uuidParam });
 export function woodRequestsRouter(ctx: AppContext): Router {
   const r = Router();
   const active = requireActive(ctx);
-  r.get('/seasons/:seasonId/my-request', active, route({ params: seasonParams }, async ({ params }, req) => ({ request: await myRequest(ctx.db, actorOf(req), params.seasonId) })));
+  r.get('/seasons/:seasonId/my-request', active, route({ params: seasonParams }, async ({ params }, req) => ({ request: await myRequest(ctx.db, actorOf(req), params.seasonId) }), { cacheIn: ctx.db }));
   r.put(
     '/seasons/:seasonId/my-request',
     active,
@@ -29,7 +29,7 @@ export function woodRequestsRouter(ctx: AppContext): Router {
     route({ params: seasonParams }, async ({ params }) => {
       const items = await seasonRequests(ctx.db, params.seasonId);
       return { items, total: items.length };
-    }),
+    }, { cacheIn: ctx.db }),
   );
   r.get(
     '/seasons/:seasonId/board',
@@ -45,6 +45,7 @@ export function woodRequestsRouter(ctx: AppContext): Router {
         const items = await woodBoard(ctx.db, params.seasonId, query.lat != null && query.lon != null ? { lat: query.lat, lon: query.lon } : null);
         return { items, total: items.length };
       },
+      { cacheIn: ctx.db },
     ),
   );
   return r;
