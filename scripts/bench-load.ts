@@ -19,6 +19,12 @@
 // better-auth's signed session cache (60 s, renewed on responses); BENCH_SESSION=lookup sends
 // the token alone, so every request looks the session up in the database.
 //
+// 3. The same run again while the farm lead saves a plant every BENCH_WRITE_EVERY_MS ms (250;
+//    0 skips it): each save is a commit, after which every answer the read cache kept
+//    (server/lib/read-cache.ts) is built again. Printed as one line before the last.
+//
+// BENCH_SERVER_NODE_ARGS passes flags to the server's node (e.g. `--cpu-prof`).
+//
 // Prints a line per route (count, non-2xx, p50/p95/p99 ms under load, response size, CPU ms
 // alone), then one JSON line: {"requests","errors","p50Ms","p95Ms","p99Ms"} over the app
 // routes (baseline left out); errors = non-2xx + socket errors + timeouts of the whole run.
@@ -42,6 +48,8 @@ const LOOKUP = process.env.BENCH_SESSION === 'lookup';
 const ROOT = path.resolve(import.meta.dirname, '..');
 const PASSWORD = 'heelwood-demo';
 const COST_RUNS = Number(process.env.BENCH_COST_RUNS ?? 40);
+/** The second run: the farm lead saves a plant this often (0 skips it). */
+const WRITE_EVERY_MS = Number(process.env.BENCH_WRITE_EVERY_MS ?? 250);
 // USER_HZ: 100 on Linux for every architecture Node runs on (`getconf CLK_TCK`).
 const CLOCK_TICKS = 100;
 
@@ -82,7 +90,7 @@ async function buildDatabase(env: NodeJS.ProcessEnv) {
 }
 
 function startServer(env: NodeJS.ProcessEnv): { child: ChildProcess; tail: string[]; exited: () => string | null } {
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, detached: true, stdio: ['ignore', 'pipe', 'pipe'] });
+  const child = spawn(process.execPath, [...(process.env.BENCH_SERVER_NODE_ARGS ?? '').split(' ').filter(Boolean), '--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, detached: true, stdio: ['ignore', 'pipe', 'pipe'] });
   const tail: string[] = [];
   let exited: string | null = null;
   const keep = (chunk: Buffer) => {
@@ -209,21 +217,51 @@ async function main() {
       }
     }
 
-    signedInAt = -Infinity;
-    const loaded = await signedInRoutes();
-    const latencies = loaded.map(() => [] as number[]);
-    const non2xx = loaded.map(() => 0);
-    const bytes = loaded.map(() => 0);
-    const load = loadavg()[0];
-    const result = await run(
-      { url: base, connections: CONNECTIONS, duration: SECONDS, timeout: 10, requests: loaded.map((r) => r.request) },
-      (i, status, ms, b) => {
-        latencies[i].push(ms);
-        bytes[i] += b;
-        if (status < 200 || status > 299) non2xx[i]++;
-      },
-    );
+    // One autocannon run over the routes; with `writeEveryMs`, the farm lead also saves a
+    // plant's notes that often through the API (every save is a commit, so every kept answer
+    // is rebuilt: the read cache at its worst).
+    const lead = await signIn(base, 'lead@heelwood.test');
+    const measure = async (writeEveryMs?: number) => {
+      signedInAt = -Infinity;
+      const loaded = await signedInRoutes();
+      const latencies = loaded.map(() => [] as number[]);
+      const non2xx = loaded.map(() => 0);
+      const bytes = loaded.map(() => 0);
+      const load = loadavg()[0];
+      let writes = 0;
+      let writeErrors = 0;
+      const writer = writeEveryMs
+        ? setInterval(() => {
+            fetch(`${base}/api/mother-plants/${ids.plantId}`, {
+              method: 'PATCH',
+              headers: { cookie: lead, origin: base, 'content-type': 'application/json' },
+              body: JSON.stringify({ notes: `bench write ${++writes}` }),
+            }).then(
+              (r) => {
+                if (r.status !== 200) writeErrors++;
+                return r.arrayBuffer();
+              },
+              () => writeErrors++,
+            );
+          }, writeEveryMs)
+        : undefined;
+      let result: Result;
+      try {
+        result = await run(
+          { url: base, connections: CONNECTIONS, duration: SECONDS, timeout: 10, requests: loaded.map((r) => r.request) },
+          (i, status, ms, b) => {
+            latencies[i].push(ms);
+            bytes[i] += b;
+            if (status < 200 || status > 299) non2xx[i]++;
+          },
+        );
+      } finally {
+        clearInterval(writer);
+      }
+      return { loaded, latencies, non2xx, bytes, load, result, writes, writeErrors };
+    };
 
+    const { loaded, latencies, non2xx, bytes, load, result } = await measure();
     console.log(
       `autocannon: ${CONNECTIONS} connections, ${SECONDS} s, one run cycling ${loaded.length} routes per connection; ` +
         `sessions ${LOOKUP ? 'looked up per request (token cookie only)' : 'from the signed cookie cache'}; load average before ${load.toFixed(2)} (2 cores)`,
@@ -240,6 +278,18 @@ async function main() {
     const app = latencies.slice(1).flat();
     const appPct = percentiles(app);
     console.log(`throughput ${(result.requests.total / result.duration).toFixed(0)} requests/s; socket errors ${result.errors - result.timeouts}, timeouts ${result.timeouts}`);
+
+    // The same run while the data keeps changing.
+    if (WRITE_EVERY_MS > 0) {
+      const w = await measure(WRITE_EVERY_MS);
+      const wApp = w.latencies.slice(1).flat();
+      const wPct = percentiles(wApp);
+      console.log(
+        `with a plant saved every ${WRITE_EVERY_MS} ms (${w.writes} saves, ${w.writeErrors} failed; load before ${w.load.toFixed(2)}): ` +
+          JSON.stringify({ requests: wApp.length, errors: w.result.non2xx + w.result.errors, p50Ms: +wPct(50).toFixed(1), p95Ms: +wPct(95).toFixed(1), p99Ms: +wPct(99).toFixed(1) }) +
+          `; throughput ${(w.result.requests.total / w.result.duration).toFixed(0)} requests/s`,
+      );
+    }
     console.log(
       JSON.stringify({
         requests: app.length,
