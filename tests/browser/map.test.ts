@@ -14,7 +14,7 @@ afterEach(async () => {
   await Promise.all(open.splice(0).map((s) => s.close()));
 });
 
-type Features = { farms: { id: string; name: string }[]; plants: { speciesName: string }[] };
+type Features = { farms: { id: string; name: string }[]; plants: { speciesName: string; code: string }[] };
 
 describe('offline map', () => {
   it('a grower sees the farms, filters a species, draws a hedgerow and reads its length, all offline', async () => {
@@ -85,6 +85,51 @@ describe('offline map', () => {
     await screenshot(page, 'map-grower');
 
     expect(foreignRequests(requests), 'requests to other hosts').toEqual([]);
+    expect(pageErrors).toEqual([]);
+  });
+
+  it('the coordinator sees every plant once in the clusters, zooms in through them and opens a plant', async () => {
+    const { page, pageErrors } = await browser();
+    await signIn(page, DEMO.coordinator);
+    await page.goto('/map');
+    const frame = page.locator('[data-testid="map-frame"][data-plants-drawn]');
+    await frame.waitFor();
+    await settled(page);
+    const drawn = Number(await frame.getAttribute('data-plants-drawn'));
+    const all = (await (await page.request.get('/api/map/features')).json()) as Features;
+    expect(drawn).toBe(all.plants.length);
+
+    // What the map shows now: each cluster's number (from its label, "N plants, …") and each single plant.
+    const shownNow = async () => {
+      const labels = await page.locator('.hw-cluster').evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
+      const counts = labels.map((l) => Number(/^(\d+) plants/.exec(l)?.[1]));
+      const singles = await page.locator('.hw-plant').count();
+      return { counts, singles };
+    };
+    // The first view fits every plant: the clusters' numbers and the single plants add up to all of them.
+    const first = await shownNow();
+    expect(first.counts.length).toBeGreaterThan(0);
+    expect(first.counts.every((n) => Number.isInteger(n) && n >= 2)).toBe(true);
+    expect(first.counts.reduce((a, b) => a + b, 0) + first.singles).toBe(all.plants.length);
+
+    // Tapping the largest cluster zooms in until it comes apart: no cluster that large is left.
+    const largest = Math.max(...first.counts);
+    await page.locator('.hw-cluster-icon').nth(first.counts.indexOf(largest)).click();
+    await expect.poll(async () => (await shownNow()).counts.filter((n) => n >= largest).length).toBeLessThan(first.counts.filter((n) => n >= largest).length);
+
+    // Keep tapping a cluster until single plants show, then open one: its details name it.
+    for (let i = 0; i < 12 && (await page.locator('.hw-plant').count()) === 0; i++) {
+      await page.locator('.hw-cluster-icon').first().click();
+      await page.waitForTimeout(400);
+    }
+    const plant = page.locator('.hw-plant').first();
+    const label = (await plant.getAttribute('aria-label'))!;
+    const code = label.split(',')[0];
+    expect(all.plants.some((p) => p.code === code)).toBe(true);
+    await page.locator('.leaflet-marker-icon', { has: plant }).click();
+    await page.getByRole('complementary', { name: 'Map details' }).getByText(code, { exact: false }).first().waitFor();
+
+    await screenshot(page, 'map-clusters-coordinator');
     expect(pageErrors).toEqual([]);
   });
 });
