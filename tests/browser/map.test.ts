@@ -129,6 +129,16 @@ describe('offline map', () => {
     await page.locator('.leaflet-marker-icon', { has: plant }).click();
     await page.getByRole('complementary', { name: 'Map details' }).getByText(code, { exact: false }).first().waitFor();
 
+    // The names of beds never print over each other: where they would, only one shows.
+    const overlaps = await page.locator('.hw-bed-label').evaluateAll((els) => {
+      const rects = els.filter((e) => getComputedStyle(e).visibility !== 'hidden').map((e) => e.getBoundingClientRect());
+      let n = 0;
+      rects.forEach((a, i) => rects.slice(i + 1).forEach((b) => (n += a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom ? 1 : 0)));
+      return { shown: rects.length, n };
+    });
+    expect(overlaps.shown).toBeGreaterThan(0);
+    expect(overlaps.n).toBe(0);
+
     await screenshot(page, 'map-clusters-coordinator');
     expect(pageErrors).toEqual([]);
   });

@@ -239,7 +239,24 @@ function FarmLayer({ farms, onSelect }: { farms: MapFarm[]; onSelect: (f: MapFar
     }
     drawings.addTo(map);
     group.addTo(map);
+    // Zoomed out, the names of neighbouring beds would print over each other: show the first
+    // of any that overlap (outlines come before their beds) and hide the rest until there is room.
+    const declutter = () => {
+      const shown: DOMRect[] = [];
+      drawings.eachLayer((layer) => {
+        const el = layer instanceof L.Tooltip ? layer.getElement() : undefined;
+        if (!el) return;
+        el.style.visibility = '';
+        const r = el.getBoundingClientRect();
+        const hit = shown.some((o) => r.left < o.right && o.left < r.right && r.top < o.bottom && o.top < r.bottom);
+        if (hit) el.style.visibility = 'hidden';
+        else shown.push(r);
+      });
+    };
+    declutter();
+    map.on('zoomend', declutter);
     return () => {
+      map.off('zoomend', declutter);
       group.remove();
       drawings.remove();
     };
