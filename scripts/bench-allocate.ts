@@ -5,6 +5,7 @@ import { loadavg } from 'node:os';
 import { pathToFileURL } from 'node:url';
 import { destination, type LatLon } from '../shared/geo.js';
 import { type AllocInput, type AllocLine, type AllocOffer, greedyAllocation, solveAllocation } from '../server/modules/allocation-rounds/allocation-model.js';
+import { prng } from '../tests/fixtures/prng.js';
 
 function arg(name: string, fallback: number): number {
   const i = process.argv.indexOf(`--${name}`);
@@ -12,18 +13,6 @@ function arg(name: string, fallback: number): number {
   const v = Number(process.argv[i + 1]);
   if (!Number.isFinite(v)) throw new Error(`--${name} needs a number`);
   return v;
-}
-
-/** Small, fast, seeded generator (mulberry32). */
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /**

@@ -5,22 +5,15 @@
 // whole cache by the database's 'register' counter, which triggers move on every change to
 // mother plants, farms, species and varieties (migration 0002): a change made anywhere (any
 // route, a job, a script) is seen by the next request.
-import { createHash } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import type { Actor } from '../../auth/guards.js';
 import type { Db } from '../../db/client.js';
 import { dataVersions } from '../../db/schema/index.js';
+import { type CachedBody, serializeJson } from '../../lib/read-cache.js';
 import { isCoordinator } from '../mother-plants/plant-access.js';
-
-export type SerializedBody = { body: Buffer; etag: string };
 
 /** Variants kept at once: a few filter combinations times a few farms' viewpoints. */
 const MAX_ENTRIES = 24;
-
-function serialize(value: unknown): SerializedBody {
-  const body = Buffer.from(JSON.stringify(value));
-  return { body, etag: `W/"${body.length.toString(16)}-${createHash('sha1').update(body).digest('base64url')}"` };
-}
 
 /** What decides the caller's view of the map: everything for a coordinator, else their farms. */
 function viewerKey(a: Actor): string {
@@ -33,7 +26,7 @@ function viewerKey(a: Actor): string {
 
 export type FeaturesCache = {
   /** `state`: the request's database state (read-cache.ts); while it stays the same, so does the counter. */
-  get(db: Db, a: Actor, filters: object, build: () => Promise<unknown>, state?: string): Promise<SerializedBody>;
+  get(db: Db, a: Actor, filters: object, build: () => Promise<unknown>, state?: string): Promise<CachedBody>;
 };
 
 /** One cache per app (tests run several apps, on different databases, in one process). */
@@ -42,7 +35,7 @@ export function createFeaturesCache(): FeaturesCache {
   /** The request state at which `version` was last read. */
   let counterState: string | undefined;
   // Promises, so that requests arriving while a variant is being built wait for that build.
-  const entries = new Map<string, Promise<SerializedBody>>();
+  const entries = new Map<string, Promise<CachedBody>>();
   return {
     async get(db, a, filters, build, state) {
       // Read the counter before the data: whatever is built next is at least this new. The
@@ -55,7 +48,7 @@ export function createFeaturesCache(): FeaturesCache {
         if (state !== undefined && current !== undefined && current >= version) counterState = state;
       }
       // No counter row, or a request that read the counter before a newer one was seen: build without the cache.
-      if (current === undefined || current < version) return serialize(await build());
+      if (current === undefined || current < version) return serializeJson(await build());
       if (current > version) {
         entries.clear();
         version = current;
@@ -63,7 +56,7 @@ export function createFeaturesCache(): FeaturesCache {
       const key = `${viewerKey(a)}|${JSON.stringify(filters)}`;
       let entry = entries.get(key);
       if (!entry) {
-        const made = build().then(serialize);
+        const made = build().then(serializeJson);
         entry = made;
         entries.set(key, made);
         made.catch(() => {

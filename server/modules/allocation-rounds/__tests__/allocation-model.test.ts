@@ -10,6 +10,7 @@ import {
   SUBSTITUTE_KM,
   solveAllocation,
 } from '../allocation-model.js';
+import { prng } from '../../../../tests/fixtures/prng.js';
 
 type Glpk = Awaited<ReturnType<typeof GLPK>>;
 let glpk: Glpk;
@@ -179,17 +180,6 @@ describe('allocation model: small cases worked by hand', () => {
 });
 
 // --- Independent cross-check with glpk.js --------------------------------------------------
-
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** 5-30 offers, 5-20 lines on a few farms, with limits, locks and scattered plants at times. */
 function randomInstance(seed: number): AllocInput {

@@ -8,6 +8,7 @@ import { highs, runStage } from '../allocation-highs.js';
 import type { AllocInput, AllocLine, AllocOffer } from '../allocation-model.js';
 import { buildMaster, type Ctx, context, type StageSpec, travelLowerBound } from '../allocation-stages.js';
 import { coverBound, improveTravel } from '../allocation-travel.js';
+import { prng } from '../../../../tests/fixtures/prng.js';
 
 type Glpk = Awaited<ReturnType<typeof GLPK>>;
 let glpk: Glpk;
@@ -22,17 +23,6 @@ function offer(id: string, farmId: string, at: LatLon, speciesId: string, variet
 }
 function line(id: string, growerId: string, at: LatLon, speciesId: string, varietyId: string | null, cuttings: number, more: Partial<AllocLine> = {}): AllocLine {
   return { id, growerId, speciesId, varietyId, cuttings, substitutesAllowed: false, priority: 1, maxDistanceKm: 50, lat: at.lat, lon: at.lon, ...more };
-}
-
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** 8-30 offers on 3-7 farms, 3-5 growers with 6-18 lines: several farms per grower to choose from. */
