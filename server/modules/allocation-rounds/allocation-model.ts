@@ -145,7 +145,7 @@ function candidateBelow(c: Ctx, t: number): number {
 }
 
 /** Whole cuttings each line of L* must get on top of its locks for a fair share t. */
-function fairFloors(c: Ctx, t: number): Float64Array {
+export function fairFloors(c: Ctx, t: number): Float64Array {
   const floors = new Float64Array(c.p.lines.length);
   for (const l of c.fairLines) {
     const want = t * c.fairWeight[l];
