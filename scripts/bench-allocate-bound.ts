@@ -5,17 +5,9 @@
 //   npm run bench:allocate-bound -- --offers 1000 --lines 400 [--seed 1] [--rounds 100]
 // Prints progress to stderr and one JSON line last on stdout (travel objective units: km of
 // visits plus the tie-break, as stats.stages[2]).
-import { cooperative } from './bench-allocate.js';
+import { arg, cooperative } from './bench-allocate.js';
 import { solveAllocation } from '../server/modules/allocation-rounds/allocation-model.js';
 import { decompositionBound } from '../server/modules/allocation-rounds/allocation-decomposition.js';
-
-function arg(name: string, fallback: number): number {
-  const i = process.argv.indexOf(`--${name}`);
-  if (i < 0) return fallback;
-  const v = Number(process.argv[i + 1]);
-  if (!Number.isFinite(v)) throw new Error(`--${name} needs a number`);
-  return v;
-}
 
 const offers = arg('offers', 1000);
 const lines = arg('lines', 400);

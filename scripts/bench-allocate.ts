@@ -7,7 +7,8 @@ import { destination, type LatLon } from '../shared/geo.js';
 import { type AllocInput, type AllocLine, type AllocOffer, greedyAllocation, solveAllocation } from '../server/modules/allocation-rounds/allocation-model.js';
 import { prng } from '../tests/fixtures/prng.js';
 
-function arg(name: string, fallback: number): number {
+/** A numeric `--name value` from the command line, or the fallback. */
+export function arg(name: string, fallback: number): number {
   const i = process.argv.indexOf(`--${name}`);
   if (i < 0) return fallback;
   const v = Number(process.argv[i + 1]);
