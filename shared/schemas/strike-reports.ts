@@ -70,6 +70,21 @@ export const strikeRatesQuerySchema = z.object({
 });
 export type StrikeRatesQuery = z.input<typeof strikeRatesQuerySchema>;
 
+/** A strike report has at most this many photos of its rooted cuttings. */
+export const MAX_REPORT_PHOTOS = 3;
+
+/** A photo of a report's rooted cuttings; the files are served as plant photos are. */
+export type StrikeReportPhotoView = {
+  id: string;
+  /** /api/photos/:id/image and /api/photos/:id/thumb: the reporter and coordinators only. */
+  url: string;
+  thumbUrl: string;
+  caption: string | null;
+  width: number;
+  height: number;
+  createdAt: string;
+};
+
 export type StrikeReportView = {
   id: string;
   bundleId: string;
@@ -80,6 +95,10 @@ export type StrikeReportView = {
   notes: string;
   reporterName: string | null;
   createdAt: string;
+  /** The caller filed this report: only they may add or remove its photos. */
+  mine: boolean;
+  /** Its photos the caller may see (the reporter's and a coordinator's view), oldest first. */
+  photos: StrikeReportPhotoView[];
 };
 
 /** A collected bundle on the grower's report page. */

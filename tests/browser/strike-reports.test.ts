@@ -15,6 +15,7 @@ import type { Species } from '../../shared/schemas/register';
 import type { OfferRow, Season } from '../../shared/schemas/seasons';
 import type { MyBundle, MyBundles, StrikeRateRow } from '../../shared/schemas/strike-reports';
 import { Client } from '../fixtures/http';
+import { makeImage } from '../fixtures/images';
 import { baseURL, DEMO, DEMO_PASSWORD, foreignRequests, openBrowser, screenshot, settled, signIn, type BrowserSession } from './support/browser';
 
 const open: BrowserSession[] = [];
@@ -202,20 +203,28 @@ describe('strike reports', () => {
     await item.getByRole('button', { name: 'File a strike report' }).click();
     const form = item.getByRole('form', { name: `Strike report on bundle ${bundle.code}` });
     await form.getByLabel('Cuttings stuck').fill(String(stuck));
-    await form.getByLabel('Rooted').fill(String(stuck + 1));
+    await form.getByLabel('Rooted', { exact: true }).fill(String(stuck + 1));
     await form.getByRole('button', { name: 'File the strike report' }).click();
     await form.getByText('Rooted cannot be more than the cuttings stuck').waitFor();
     expect((await myBundle(page, bundle.id)).reports).toHaveLength(0);
 
     // The real report.
-    await form.getByLabel('Rooted').fill(String(rooted));
+    await form.getByLabel('Rooted', { exact: true }).fill(String(rooted));
     await form.getByLabel('Date assessed').fill(farmToday());
     await form.getByLabel('Notes').fill('Lined out in the nursery bed; counted the ones in leaf.');
+    // With a photo of the rooted cuttings, uploaded once the report is saved.
+    await form.getByLabel('Photo of the rooted cuttings').setInputFiles({ name: 'roots.jpg', mimeType: 'image/jpeg', buffer: await makeImage('jpeg', { width: 400, height: 300 }) });
     await form.getByRole('button', { name: 'File the strike report' }).click();
     await item.getByRole('status').filter({ hasText: 'Strike report filed' }).filter({ hasText: `${rooted} of ${stuck} rooted` }).waitFor();
     const filed = await myBundle(page, bundle.id);
     expect(filed.reports).toHaveLength(1);
     expect(filed.reports[0]).toMatchObject({ stuck, rooted, treatment });
+    expect(filed.reports[0].photos).toHaveLength(1);
+    const thumb = item.getByRole('link').filter({ has: page.getByRole('img', { name: /^Photo of the strike report of / }) });
+    await thumb.waitFor();
+    expect(await thumb.getAttribute('href')).toBe(filed.reports[0].photos[0].url);
+    // The thumbnail really loaded (the browser decoded an image).
+    await expect.poll(() => thumb.locator('img').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBeGreaterThan(0);
     await item.getByText('Reported', { exact: true }).waitFor();
     await item.scrollIntoViewIfNeeded();
     await shootBoth(page, 'strike-reports-my-bundles');
@@ -256,7 +265,7 @@ describe('strike reports', () => {
     await page.goto('/my-bundles');
     await item.getByRole('button', { name: 'Report more cuttings' }).click();
     await form.getByLabel('Cuttings stuck').fill('1');
-    await form.getByLabel('Rooted').fill('0');
+    await form.getByLabel('Rooted', { exact: true }).fill('0');
     await form.getByLabel('Date assessed').fill(farmToday());
     await form.getByRole('button', { name: 'File the strike report' }).click();
     await expect.poll(() => item.getByTestId('strike-report').count()).toBe(2);

@@ -86,6 +86,8 @@ export type Fx = {
     /** Uploaded: a photo of `plant`, and one attached to a finding on `plant`. */
     photo: string;
     findingPhoto: string;
+    /** Uploaded by the member: a photo of a strike report the member filed. */
+    reportPhoto: string;
     /** Made: a mailbox message with one attachment. */
     mail: string;
   };
@@ -105,8 +107,10 @@ export type Fx = {
   /** A WTH pickup window in the open season. */
   freshWindow(): Promise<string>;
   freshPhoto(): Promise<string>;
-  /** A strike report by the member on a bundle the member collected. */
-  freshStrikeReport(): Promise<string>;
+  /** A strike report by the member on a bundle the member collected ('photos': a second such bundle). */
+  freshStrikeReport(bundle?: 'reporting' | 'photos'): Promise<string>;
+  /** A photo, uploaded by the member, of a fresh strike report of the member's. */
+  freshReportPhoto(): Promise<string>;
   /** Makes sure this caller has a filed request in the open season (active people only). */
   ensureRequest(kind: CallerKind): Promise<void>;
   exchange(opts: ExchangeOptions): Promise<Exchange>;
@@ -501,6 +505,38 @@ export const MATRIX: MatrixRow[] = [
     call: async (fx) => ({ params: { id: await fx.freshPhoto() } }),
     expect: farmPeople(204),
     why: 'removePhoto: mayEdit',
+  },
+  {
+    method: 'POST',
+    path: '/api/strike-reports/:id/photos',
+    target: 'a fresh report by the member',
+    call: async (fx) => ({ params: { id: await fx.freshStrikeReport('photos') }, form: photoForm }),
+    expect: { ...admitted(404), member: 201, coordinator: 403 },
+    why: 'assertMayAddReportPhoto: the reporter only, checked before the upload is read; hidden from all but the reporter and coordinators',
+  },
+  {
+    method: 'GET',
+    path: '/api/photos/:id/image',
+    target: 'photo of a strike report by the member',
+    call: (fx) => ({ params: { id: fx.ids.reportPhoto } }),
+    expect: { ...admitted(404), member: 200, coordinator: 200 },
+    why: 'visiblePhoto: strike-report photos are the reporter\'s and the coordinators\'',
+  },
+  {
+    method: 'GET',
+    path: '/api/photos/:id/thumb',
+    target: 'photo of a strike report by the member',
+    call: (fx) => ({ params: { id: fx.ids.reportPhoto } }),
+    expect: { ...admitted(404), member: 200, coordinator: 200 },
+    why: 'as the image',
+  },
+  {
+    method: 'DELETE',
+    path: '/api/photos/:id',
+    target: 'a fresh photo of a strike report by the member',
+    call: async (fx) => ({ params: { id: await fx.freshReportPhoto() } }),
+    expect: { ...admitted(404), member: 204, coordinator: 403 },
+    why: 'removePhoto: the reporter only (a coordinator sees it but removes the whole report instead)',
   },
 
   // Seasons, offers, windows, requests ---------------------------------------------------------

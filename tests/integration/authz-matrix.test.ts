@@ -261,6 +261,14 @@ async function buildFixtures(): Promise<Fx> {
     return (r.body as { photo: { id: string } }).photo.id;
   }
 
+  async function uploadReportPhoto(reportId: string) {
+    const form = new FormData();
+    form.append('photo', new Blob([new Uint8Array(await makeImage('jpeg'))], { type: 'image/jpeg' }), 'cuttings.jpg');
+    const r = await clients.get('member')!.request('POST', `/api/strike-reports/${reportId}/photos`, undefined, { form });
+    if (r.status !== 201) throw new Error(`strike-report photo upload failed: ${r.status} ${r.text}`);
+    return (r.body as { photo: { id: string } }).photo.id;
+  }
+
   async function insertSeason(stage: 'planning' | 'allocating' | 'collections') {
     const [row] = await db
       .insert(seasons)
@@ -344,12 +352,23 @@ async function buildFixtures(): Promise<Fx> {
     return shared.get(key) as Promise<T>;
   };
 
+  /** On its own bundle when for photos, so photo rows do not use up the cuttings the filing row reports on. */
+  async function freshStrikeReport(bundle: 'reporting' | 'photos' = 'reporting') {
+    const x = await once(bundle, () => exchange({ stage: 'collections', round: 'approved', bundle: 'collected', grower: 'member' }));
+    const [r] = await db
+      .insert(strikeReports)
+      .values({ bundleId: x.bundleId, reporterId: userIds.get('member')!, stuck: 1, rooted: 1, assessedOn: today, treatment: 'none' })
+      .returning();
+    return r.id;
+  }
+
   const heldPlant = await freshPlant({ status: 'hold' });
   const eligiblePlant = await freshPlant();
   const travellingPlant = await freshPlant({ status: 'hold' });
   await addFinding(travellingPlant, travelling.id);
   const photo = await uploadPhoto(demoPlant.id);
   const findingPhoto = await uploadPhoto(demoPlant.id, await addFinding(demoPlant.id, minorPest.id));
+  const reportPhoto = await uploadReportPhoto(await freshStrikeReport('photos'));
   const attachment = Buffer.from('Pickup slip for the matrix.\n');
   const [mail] = await db
     .insert(mailbox)
@@ -378,6 +397,7 @@ async function buildFixtures(): Promise<Fx> {
       approvedRound: approvedRound.id,
       photo,
       findingPhoto,
+      reportPhoto,
       mail: mail.id,
     },
     userId: (kind) => userIds.get(kind)!,
@@ -408,14 +428,8 @@ async function buildFixtures(): Promise<Fx> {
       return w.id;
     },
     freshPhoto: () => uploadPhoto(demoPlant.id),
-    async freshStrikeReport() {
-      const x = await once('reporting', () => exchange({ stage: 'collections', round: 'approved', bundle: 'collected', grower: 'member' }));
-      const [r] = await db
-        .insert(strikeReports)
-        .values({ bundleId: x.bundleId, reporterId: userIds.get('member')!, stuck: 1, rooted: 1, assessedOn: today, treatment: 'none' })
-        .returning();
-      return r.id;
-    },
+    freshStrikeReport,
+    freshReportPhoto: async () => uploadReportPhoto(await freshStrikeReport('photos')),
     async ensureRequest(kind) {
       if (!ACTIVE.includes(kind)) return;
       await db

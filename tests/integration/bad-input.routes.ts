@@ -18,7 +18,7 @@ import { offerInputSchema, pickupWindowSchema, seasonCreateSchema, seasonStageSc
 import { raisePlantsSchema, strikeReportCreateSchema } from '../../shared/schemas/strike-reports.js';
 import { noticeSchema } from '../../shared/schemas/trace.js';
 import { outlineSchema } from '../../server/modules/map/map.router.js';
-import { photoFieldsSchema } from '../../server/modules/photos/photos.router.js';
+import { photoFieldsSchema, reportPhotoFieldsSchema } from '../../server/modules/photos/photos.router.js';
 import { makeImage } from '../fixtures/images.js';
 import type { TestApp } from '../fixtures/test-app.js';
 
@@ -480,6 +480,20 @@ export const ROUTES: WriteRoute[] = [
     caller: 'coordinator',
     params: (ids) => ({ id: ids.plantPhoto }),
     body: { kind: 'multipart', fields: photoFieldsSchema, writes: true },
+  },
+  {
+    method: 'POST',
+    path: '/api/strike-reports/:id/photos',
+    group: 'uploads',
+    caller: 'coordinator',
+    // Only the reporter may add photos, so the coordinator files the report the fuzz photographs.
+    // Once it holds three photos every further upload is refused (409) before its body is read.
+    setup: async (fx) => {
+      const report = await fx.coordinator('POST', `/api/bundles/${fx.ids.reportBundle}/strike-reports`, { stuck: 2, rooted: 1, assessedOn: dayBefore(today()) });
+      fx.ids.photoReport = report.id;
+    },
+    params: (ids) => ({ id: ids.photoReport }),
+    body: { kind: 'multipart', fields: reportPhotoFieldsSchema, writes: true },
   },
   {
     method: 'POST',

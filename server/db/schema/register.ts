@@ -18,7 +18,7 @@ import {
 import { HEALTH_STATUSES, PLANT_ROLES, PROVENANCES, PROPAGATION_METHODS } from '../../../shared/domain.js';
 import { user } from './auth.js';
 import { farms } from './farms.js';
-import { bundles } from './exchange.js';
+import { bundles, strikeReports } from './exchange.js';
 import { inRange, oneOf } from './helpers.js';
 
 export const species = pgTable(
@@ -128,6 +128,8 @@ export const photos = pgTable(
     plantId: uuid().references(() => motherPlants.id, { onDelete: 'cascade' }),
     /** Set when the photo belongs to an inspection finding. */
     findingId: uuid(),
+    /** Set when the photo shows how the cuttings of a strike report rooted (then no plant or finding). */
+    strikeReportId: uuid().references((): AnyPgColumn => strikeReports.id, { onDelete: 'cascade' }),
     fileName: text().notNull(),
     thumbName: text().notNull(),
     mimeType: text().notNull(),
@@ -144,6 +146,8 @@ export const photos = pgTable(
   (t) => [
     check('photos_mime_check', oneOf(t.mimeType, ['image/jpeg', 'image/png', 'image/webp'])),
     check('photos_size_check', sql`${t.width} > 0 and ${t.height} > 0 and ${t.bytes} > 0`),
+    check('photos_owner_check', sql`${t.strikeReportId} is null or (${t.plantId} is null and ${t.findingId} is null)`),
     index('photos_plant_idx').on(t.plantId),
+    index('photos_strike_report_idx').on(t.strikeReportId),
   ],
 );

@@ -11,7 +11,9 @@ import { assertStorableText, badRequest, fromZod, HttpError, notFound } from '..
 import { route } from '../../lib/route.js';
 import {
   addPhoto,
+  addReportPhoto,
   assertMayAddPhoto,
+  assertMayAddReportPhoto,
   MAX_UPLOAD_BYTES,
   photoFile,
   photosDir,
@@ -21,19 +23,24 @@ import {
 
 const idParams = z.object({ id: uuidParam });
 
+const captionField = z
+  .string({ error: 'Caption must be text' })
+  .trim()
+  .max(500, 'Caption is at most 500 characters')
+  .optional()
+  .transform((v) => v || null);
+
 /** The text parts of an upload form; browsers send empty strings for untouched inputs. */
 export const photoFieldsSchema = z.object({
-  caption: z
-    .string({ error: 'Caption must be text' })
-    .trim()
-    .max(500, 'Caption is at most 500 characters')
-    .optional()
-    .transform((v) => v || null),
+  caption: captionField,
   findingId: z
     .union([z.literal(''), uuidParam])
     .optional()
     .transform((v) => v || null),
 });
+
+/** The text part of a strike-report photo upload. */
+export const reportPhotoFieldsSchema = z.object({ caption: captionField });
 
 const upload = multer({
   storage: multer.memoryStorage(),
@@ -84,6 +91,24 @@ export function photosRouter(ctx: AppContext): Router {
         if (!fields.success) throw fromZod(fields.error, 'form');
         assertStorableText(fields.data, 'form');
         return addPhoto(deps, actorOf(req), params.id, buffer, fields.data);
+      },
+      { status: 201 },
+    ),
+  );
+
+  r.post(
+    '/strike-reports/:id/photos',
+    active,
+    route(
+      { params: idParams },
+      async ({ params }, req, res) => {
+        // As for plants: the reporter is known to be the caller before any of the upload is read.
+        await assertMayAddReportPhoto(ctx.db, actorOf(req), params.id);
+        const buffer = await receivePhoto(req, res);
+        const fields = reportPhotoFieldsSchema.safeParse(req.body ?? {});
+        if (!fields.success) throw fromZod(fields.error, 'form');
+        assertStorableText(fields.data, 'form');
+        return addReportPhoto(deps, actorOf(req), params.id, buffer, fields.data);
       },
       { status: 201 },
     ),

@@ -1,5 +1,5 @@
-// Photos of mother plants and of inspection findings: who may add, see and remove them,
-// and what happens to the bytes. Uploads are judged by their content (never by name or
+// Photos of mother plants, of inspection findings and of strike reports (how a grower's
+// cuttings rooted): who may add, see and remove them, and what happens to the bytes. Uploads are judged by their content (never by name or
 // declared type), their GPS tag and date taken are read before anything is stripped, and
 // only re-encoded copies without metadata are kept, so a photo never leaks where a
 // member lives or what camera they own.
@@ -9,13 +9,23 @@ import path from 'node:path';
 import exifr from 'exifr';
 import sharp, { type Metadata } from 'sharp';
 import type { PhotoView } from '../../../shared/schemas/register.js';
+import { MAX_REPORT_PHOTOS, type StrikeReportPhotoView } from '../../../shared/schemas/strike-reports.js';
 import type { Actor } from '../../auth/guards.js';
 import type { Config } from '../../config.js';
-import type { Db } from '../../db/client.js';
+import type { Db, DbOrTx } from '../../db/client.js';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../../lib/http-error.js';
-import { mayEdit, mayInspect, seesFull } from '../mother-plants/plant-access.js';
+import { isCoordinator, mayEdit, mayInspect, seesFull } from '../mother-plants/plant-access.js';
 import { photoView, visiblePlant } from '../mother-plants/mother-plants.service.js';
-import { deletePhotoRow, findPhoto, insertPhoto, plantOfFinding, type PhotoRow } from './photos.repo.js';
+import {
+  countReportPhotos,
+  deletePhotoRow,
+  findPhoto,
+  findReportForPhotos,
+  insertPhoto,
+  type NewPhotoRow,
+  plantOfFinding,
+  type PhotoRow,
+} from './photos.repo.js';
 
 export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
 /** Long side of the kept copy: sharp enough to tell a leaf spot, small enough for a phone. */
@@ -142,6 +152,26 @@ export async function addPhoto(
   if (fields.findingId && (await plantOfFinding(deps.db, fields.findingId)) !== plantId) {
     throw badRequest('That finding was not recorded on this plant.', { findingId: 'not a finding on this plant' });
   }
+  const { row, gps } = await storePhoto(deps, buffer, (stored) =>
+    insertPhoto(deps.db, { ...stored, plantId, findingId: fields.findingId, caption: fields.caption, uploadedBy: a.id }),
+  );
+  // The position is offered, not applied: the person decides whether the plant stands there.
+  return { photo: photoView(row), gps };
+}
+
+type StoredPhoto = Pick<NewPhotoRow, 'fileName' | 'thumbName' | 'mimeType' | 'width' | 'height' | 'bytes' | 'gpsLat' | 'gpsLon' | 'takenAt'>;
+
+/**
+ * Checks the bytes, writes the kept copy and the thumbnail, then lets `insert` write the row.
+ * When anything fails the files are removed again: files without a row would never be served
+ * or cleaned up.
+ */
+async function storePhoto(
+  deps: PhotoDeps,
+  buffer: Buffer,
+  insert: (stored: StoredPhoto) => Promise<PhotoRow>,
+  opts: { keepPosition: boolean } = { keepPosition: true },
+): Promise<{ row: PhotoRow; gps: Gps | null }> {
   const info = await inspectImage(buffer);
   const out = await encode(buffer, info.format);
 
@@ -149,34 +179,91 @@ export async function addPhoto(
   const fileName = `${randomUUID()}.${FORMATS[info.format].ext}`;
   const thumbName = `${randomUUID()}.webp`;
   const written: string[] = [];
-  let row: PhotoRow;
   try {
     for (const [name, data] of [[fileName, out.main], [thumbName, out.thumb]] as const) {
       await writeFile(path.join(deps.dir, name), data, { flag: 'wx' });
       written.push(name);
     }
-    row = await insertPhoto(deps.db, {
-      plantId,
-      findingId: fields.findingId,
+    const gps = opts.keepPosition ? info.gps : null;
+    const row = await insert({
       fileName,
       thumbName,
       mimeType: FORMATS[info.format].mime,
       width: out.width,
       height: out.height,
       bytes: out.main.length,
-      gpsLat: info.gps?.lat ?? null,
-      gpsLon: info.gps?.lon ?? null,
+      gpsLat: gps?.lat ?? null,
+      gpsLon: gps?.lon ?? null,
       takenAt: info.takenAt,
-      caption: fields.caption,
-      uploadedBy: a.id,
     });
+    return { row, gps };
   } catch (err) {
-    // Files without a row would never be served or cleaned up.
-    await Promise.all(written.map((n) => rm(path.join(deps.dir, n), { force: true })));
+    await removePhotoFiles(deps.dir, written);
     throw err;
   }
-  // The position is offered, not applied: the person decides whether the plant stands there.
-  return { photo: photoView(row), gps: info.gps };
+}
+
+/** Removes files of the photo folder by name; a failed unlink is logged, never thrown. */
+export async function removePhotoFiles(dir: string, names: readonly string[]): Promise<void> {
+  const results = await Promise.allSettled(names.map((n) => rm(path.join(dir, path.basename(n)), { force: true })));
+  for (const r of results) if (r.status === 'rejected') console.error('[heelwood] photo file not removed:', r.reason);
+}
+
+// Photos of strike reports ------------------------------------------------------------------
+
+type ReportOfPhotos = { id: string; reporterId: string | null };
+
+/** The reporter and coordinators see a report's photos (a grower's own bench, not the register). */
+const seesReportPhotos = (a: Actor, report: ReportOfPhotos) => report.reporterId === a.id || isCoordinator(a);
+
+export function reportPhotoView(p: PhotoRow): StrikeReportPhotoView {
+  return {
+    id: p.id,
+    url: `/api/photos/${p.id}/image`,
+    thumbUrl: `/api/photos/${p.id}/thumb`,
+    caption: p.caption,
+    width: p.width,
+    height: p.height,
+    createdAt: p.createdAt.toISOString(),
+  };
+}
+
+/** Only the person who filed the report adds photos to it (others learn nothing of it), up to three. */
+async function checkMayAddReportPhoto(db: DbOrTx, a: Actor, report: ReportOfPhotos | undefined) {
+  if (!report || !seesReportPhotos(a, report)) throw notFound('That strike report');
+  if (report.reporterId !== a.id) throw forbidden('Only the grower who filed this strike report may add photos to it.');
+  if ((await countReportPhotos(db, report.id)) >= MAX_REPORT_PHOTOS) {
+    throw conflict(`A strike report has at most ${MAX_REPORT_PHOTOS} photos; delete one to add another.`, {
+      photo: `at most ${MAX_REPORT_PHOTOS} photos per report`,
+    });
+  }
+}
+
+export async function assertMayAddReportPhoto(db: Db, a: Actor, reportId: string): Promise<void> {
+  await checkMayAddReportPhoto(db, a, await findReportForPhotos(db, reportId));
+}
+
+export async function addReportPhoto(
+  deps: PhotoDeps,
+  a: Actor,
+  reportId: string,
+  buffer: Buffer,
+  fields: { caption: string | null },
+): Promise<{ photo: StrikeReportPhotoView }> {
+  await assertMayAddReportPhoto(deps.db, a, reportId);
+  // No position is kept: it would say where the grower keeps their cuttings, and nothing here uses it.
+  const { row } = await storePhoto(
+    deps,
+    buffer,
+    (stored) =>
+      deps.db.transaction(async (tx) => {
+        // Checked again on the locked report, so two uploads at once cannot make a fourth photo.
+        await checkMayAddReportPhoto(tx, a, await findReportForPhotos(tx, reportId, true));
+        return insertPhoto(tx, { ...stored, strikeReportId: reportId, caption: fields.caption, uploadedBy: a.id });
+      }),
+    { keepPosition: false },
+  );
+  return { photo: reportPhotoView(row) };
 }
 
 /** For placing a plant from a photo: the same checks, nothing kept. */
@@ -185,10 +272,18 @@ export async function readPhotoPosition(buffer: Buffer): Promise<{ gps: Gps | nu
   return { gps: info.gps, takenAt: info.takenAt?.toISOString() ?? null };
 }
 
-/** A photo the caller may see; finding photos are part of the health record, kept to the farm. */
+/**
+ * A photo the caller may see; finding photos are part of the health record, kept to the farm;
+ * strike-report photos to the reporter and coordinators.
+ */
 async function visiblePhoto(db: Db, a: Actor, id: string) {
   const row = await findPhoto(db, id);
   if (!row) throw notFound('That photo');
+  if (row.strikeReportId) {
+    const report = await findReportForPhotos(db, row.strikeReportId);
+    if (!report || !seesReportPhotos(a, report)) throw notFound('That photo');
+    return { kind: 'report' as const, row, report };
+  }
   const plantId = row.plantId ?? (row.findingId ? await plantOfFinding(db, row.findingId) : undefined);
   if (!plantId) throw notFound('That photo');
   let plant;
@@ -200,7 +295,7 @@ async function visiblePhoto(db: Db, a: Actor, id: string) {
     throw err;
   }
   if (row.findingId && !seesFull(a, plant.farmId)) throw notFound('That photo');
-  return { row, plant };
+  return { kind: 'plant' as const, row, plant };
 }
 
 export async function photoFile(db: Db, a: Actor, id: string, kind: 'image' | 'thumb') {
@@ -211,14 +306,15 @@ export async function photoFile(db: Db, a: Actor, id: string, kind: 'image' | 't
 }
 
 export async function removePhoto(deps: PhotoDeps, a: Actor, id: string): Promise<void> {
-  const { plant } = await visiblePhoto(deps.db, a, id);
-  if (!mayEdit(a, plant.farmId)) throw forbidden('Only the people of that farm, or a coordinator, may remove its photos.');
-  if (plant.healthStatus === 'retired') throw conflict('A retired plant is kept as history; its photos stay.');
+  const seen = await visiblePhoto(deps.db, a, id);
+  if (seen.kind === 'report') {
+    if (seen.report.reporterId !== a.id) throw forbidden('Only the grower who filed this strike report may remove its photos.');
+  } else {
+    if (!mayEdit(a, seen.plant.farmId)) throw forbidden('Only the people of that farm, or a coordinator, may remove its photos.');
+    if (seen.plant.healthStatus === 'retired') throw conflict('A retired plant is kept as history; its photos stay.');
+  }
   const row = await deletePhotoRow(deps.db, id);
   if (!row) return;
   // The row goes first: a file left behind by a failed unlink is unreachable, never a broken link.
-  const results = await Promise.allSettled(
-    [row.fileName, row.thumbName].map((n) => rm(path.join(deps.dir, path.basename(n)), { force: true })),
-  );
-  for (const r of results) if (r.status === 'rejected') console.error('[heelwood] photo file not removed:', r.reason);
+  await removePhotoFiles(deps.dir, [row.fileName, row.thumbName]);
 }

@@ -68,7 +68,8 @@ export async function strikeReportTotals(
   return sumGroups(await strikeReportGroups(db, { speciesId: where.speciesId, varietyId: where.varietyId, treatment: where.treatment }));
 }
 
-export async function reportsOfBundles(db: DbOrTx, bundleIds: string[]): Promise<StrikeReportView[]> {
+/** Reports on these bundles as the grower's page shows them, with who filed each (photos are added by the service). */
+export async function reportsOfBundles(db: DbOrTx, bundleIds: string[]): Promise<(Omit<StrikeReportView, 'mine' | 'photos'> & { reporterId: string | null })[]> {
   if (!bundleIds.length) return [];
   const rows = await db
     .select({
@@ -80,6 +81,7 @@ export async function reportsOfBundles(db: DbOrTx, bundleIds: string[]): Promise
       treatment: strikeReports.treatment,
       notes: strikeReports.notes,
       reporterName: user.name,
+      reporterId: strikeReports.reporterId,
       createdAt: strikeReports.createdAt,
     })
     .from(strikeReports)

@@ -8,6 +8,7 @@ import { raisePlantsSchema, strikeRatesQuerySchema, strikeReportCreateSchema } f
 import { actorOf, requireActive } from '../../auth/guards.js';
 import type { AppContext } from '../../context.js';
 import { route } from '../../lib/route.js';
+import { photosDir } from '../photos/photos.service.js';
 import { fileStrikeReport, myBundles, raisePlants, removeStrikeReport, strikeRateTable } from './strike-reports.service.js';
 
 const bundleParams = z.object({ bundleId: uuidParam });
@@ -29,7 +30,7 @@ export function strikeReportsRouter(ctx: AppContext): Router {
     '/strike-reports/:id',
     active,
     route({ params: z.object({ id: uuidParam }) }, async ({ params }, req) => {
-      await removeStrikeReport(ctx.db, actorOf(req), params.id);
+      await removeStrikeReport(ctx.db, photosDir(ctx.config), actorOf(req), params.id);
     }),
   );
   r.post(

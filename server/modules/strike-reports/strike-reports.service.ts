@@ -31,6 +31,8 @@ import { badRequest, conflict, forbidden, notFound } from '../../lib/http-error.
 import { writeAudit } from '../audit/audit.repo.js';
 import { insertPlant, nextPlantNumber } from '../mother-plants/mother-plants.repo.js';
 import { isCoordinator } from '../mother-plants/plant-access.js';
+import { photosOfReports } from '../photos/photos.repo.js';
+import { removePhotoFiles, reportPhotoView } from '../photos/photos.service.js';
 import { localDate, reportDueOn } from '../reminders/report-due.js';
 import {
   bundleReportSums,
@@ -119,13 +121,18 @@ export async function fileStrikeReport(db: Db, a: Actor, bundleId: string, input
       action: 'strike_report',
       after: { reportId: row.id, stuck: row.stuck, rooted: row.rooted, assessedOn: row.assessedOn, treatment: row.treatment },
     });
-    return { ...row, reporterName: a.name, createdAt: row.createdAt.toISOString() };
+    const { reporterId: _reporter, ...view } = row;
+    return { ...view, reporterName: a.name, createdAt: row.createdAt.toISOString(), mine: true, photos: [] };
   });
 }
 
-/** A report filed by mistake: its reporter or a coordinator removes it, unless plants raised depend on it. */
-export async function removeStrikeReport(db: Db, a: Actor, reportId: string): Promise<void> {
-  await db.transaction(async (tx) => {
+/**
+ * A report filed by mistake: its reporter or a coordinator removes it, unless plants raised
+ * depend on it. Its photo rows go with it (ON DELETE CASCADE); their files are removed once the
+ * transaction has committed, so a rolled-back removal never leaves rows without files.
+ */
+export async function removeStrikeReport(db: Db, photoDir: string, a: Actor, reportId: string): Promise<void> {
+  const files = await db.transaction(async (tx) => {
     const report = await findStrikeReport(tx, reportId);
     if (!report) throw notFound('That strike report');
     const bundle = await lockBundle(tx, report.bundleId);
@@ -135,6 +142,7 @@ export async function removeStrikeReport(db: Db, a: Actor, reportId: string): Pr
     if (sums.rooted - report.rooted < sums.raised) {
       throw conflict(`${sums.raised} plants are registered as raised from this bundle; the remaining reports would count fewer rooted cuttings than that.`);
     }
+    const photos = await photosOfReports(tx, [reportId]);
     await deleteStrikeReport(tx, reportId);
     await writeAudit(tx, {
       actorId: a.id,
@@ -143,7 +151,9 @@ export async function removeStrikeReport(db: Db, a: Actor, reportId: string): Pr
       action: 'strike_report_removed',
       before: { reportId, stuck: report.stuck, rooted: report.rooted, assessedOn: report.assessedOn, treatment: report.treatment },
     });
+    return photos.flatMap((p) => [p.fileName, p.thumbName]);
   });
+  await removePhotoFiles(photoDir, files);
 }
 
 /** The caller's collected bundles across seasons, newest first, with their reports. */
@@ -176,6 +186,11 @@ export async function myBundles(db: DbOrTx, a: Actor): Promise<MyBundles> {
     .orderBy(desc(bundles.collectedAt), asc(bundles.code));
   const ids = rows.map((r) => r.b.id);
   const reports = await reportsOfBundles(db, ids);
+  // Photos of reports the caller filed (a coordinator sees all): the files answer them alone.
+  const photoRows = await photosOfReports(
+    db,
+    reports.filter((x) => x.reporterId === a.id || isCoordinator(a)).map((x) => x.id),
+  );
   const raised = await plantsFromBundles(db, ids);
   const farmNames = new Map(
     raised.length
@@ -183,7 +198,13 @@ export async function myBundles(db: DbOrTx, a: Actor): Promise<MyBundles> {
       : [],
   );
   const items: MyBundle[] = rows.map((r) => {
-    const mine = reports.filter((x) => x.bundleId === r.b.id);
+    const mine: StrikeReportView[] = reports
+      .filter((x) => x.bundleId === r.b.id)
+      .map(({ reporterId, ...x }) => ({
+        ...x,
+        mine: reporterId === a.id,
+        photos: photoRows.filter((p) => p.strikeReportId === x.id).map(reportPhotoView),
+      }));
     const reported = { stuck: mine.reduce((s, x) => s + x.stuck, 0), rooted: mine.reduce((s, x) => s + x.rooted, 0) };
     const plants = raised.filter((p) => p.sourceBundleId === r.b.id).map((p) => ({ id: p.id, code: p.code, farmName: farmNames.get(p.farmId) ?? '' }));
     const collectedOn = localDate(r.b.collectedAt!, r.timezone);

@@ -12,7 +12,7 @@ const bundle: RaiseFormBundle = {
   code: 'B25-0007',
   plant: { code: 'ARB-0012' },
   farm: { name: 'Arrowbank Nursery' },
-  reports: [{ id: 'r1', bundleId: 'b1', stuck: 9, rooted: 7, assessedOn: '2026-09-15', treatment: 'willow', notes: '', reporterName: 'Kasia Nowak', createdAt: '2026-09-15T10:00:00Z' }],
+  reports: [{ id: 'r1', bundleId: 'b1', stuck: 9, rooted: 7, assessedOn: '2026-09-15', treatment: 'willow', notes: '', reporterName: 'Kasia Nowak', createdAt: '2026-09-15T10:00:00Z', mine: true, photos: [] }],
   reported: { stuck: 9, rooted: 7 },
   raisedPlants: [{ id: 'p0', code: 'WTH-0040', farmName: 'Wetherstone Farm' }],
   mayRaise: 6,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { reportStatus } from '../lib/report-status';
 
-const report = { id: 'r', bundleId: 'b', stuck: 20, rooted: 15, assessedOn: '2026-06-10', treatment: 'none' as const, notes: '', reporterName: null, createdAt: '2026-06-10T00:00:00Z' };
+const report = { id: 'r', bundleId: 'b', stuck: 20, rooted: 15, assessedOn: '2026-06-10', treatment: 'none' as const, notes: '', reporterName: null, createdAt: '2026-06-10T00:00:00Z', mine: true, photos: [] };
 
 describe('reportStatus', () => {
   it('waits before the due day, says due from it, and reported once a report is in', () => {

@@ -36,15 +36,18 @@ function renderForm(b: ReportFormBundle = bundle) {
   return { onFiled, user: userEvent.setup() };
 }
 
+/** The control whose label starts with these words ("Rooted" is not "Photo of the rooted cuttings"; "Notes" may be "(optional)"). */
+const control = (label: string) => screen.getByLabelText(new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`));
+
 /** The message the Field shows beside a control (tied to it by aria-describedby). */
 function errorBeside(label: string): string {
-  const control = screen.getByLabelText(label, { exact: false });
-  const ids = (control.getAttribute('aria-describedby') ?? '').split(' ').filter((id) => id.endsWith('-error'));
+  const box = control(label);
+  const ids = (box.getAttribute('aria-describedby') ?? '').split(' ').filter((id) => id.endsWith('-error'));
   return ids.map((id) => document.getElementById(id)?.textContent ?? '').join(' ');
 }
 
 async function fill(user: ReturnType<typeof userEvent.setup>, label: string, value: string) {
-  const box = screen.getByLabelText(label, { exact: false });
+  const box = control(label);
   await user.clear(box);
   if (value) await user.type(box, value);
 }
@@ -130,5 +133,77 @@ describe('StrikeReportForm', () => {
     await waitFor(() => expect(errorBeside('Cuttings stuck')).toMatch(/At most 4: .* 56 are already in a report/));
     expect(screen.getByRole('alert').textContent).toMatch(/Check the report\./);
     expect(onFiled).not.toHaveBeenCalled();
+  });
+
+  describe('photo of the rooted cuttings', () => {
+    const PHOTO = 'Photo of the rooted cuttings';
+    const filed = { id: 'r1', bundleId: 'b1', stuck: 9, rooted: 7, assessedOn: '2026-09-15', treatment: 'willow', notes: '', reporterName: 'Sam Okafor', createdAt: '2026-09-20T10:00:00Z', mine: true, photos: [] };
+    const stored = { photo: { id: 'p1', url: '/api/photos/p1/image', thumbUrl: '/api/photos/p1/thumb', caption: null, width: 64, height: 48, createdAt: '2026-09-20T10:00:01Z' } };
+    const json = (body: unknown, status: number) => new Response(JSON.stringify(body), { status });
+    const jpeg = () => new File([new Uint8Array([0xff, 0xd8, 0xff, 0xe0])], 'roots.jpg', { type: 'image/jpeg' });
+    const photoInput = () => control(PHOTO) as HTMLInputElement;
+
+    async function fillReport(user: ReturnType<typeof userEvent.setup>) {
+      await fill(user, 'Cuttings stuck', '9');
+      await fill(user, 'Rooted', '7');
+      await fill(user, 'Date assessed', '2026-09-15');
+    }
+
+    it('offers JPEG, PNG and WebP, and refuses another type beside the field without filing anything', async () => {
+      renderForm();
+      expect(photoInput().accept).toBe('image/jpeg,image/png,image/webp');
+      const user = userEvent.setup({ applyAccept: false });
+      await fillReport(user);
+      await user.upload(photoInput(), new File(['GIF89a'], 'roots.gif', { type: 'image/gif' }));
+      await submit(user);
+      await waitFor(() => expect(errorBeside(PHOTO)).toMatch(/Photo of the rooted cuttings: choose a JPEG, PNG or WebP image/));
+      expect(fetchMock).not.toHaveBeenCalled();
+    });
+
+    it('refuses a photo over 10 MB (the server limit) before filing', async () => {
+      const { user } = renderForm();
+      await fillReport(user);
+      await user.upload(photoInput(), new File([new Uint8Array(10 * 1024 * 1024 + 1)], 'big.jpg', { type: 'image/jpeg' }));
+      await submit(user);
+      await waitFor(() => expect(errorBeside(PHOTO)).toMatch(/larger than 10 MB/));
+      expect(fetchMock).not.toHaveBeenCalled();
+    });
+
+    it('uploads the photo right after the report is filed, then hands the report back', async () => {
+      fetchMock.mockResolvedValueOnce(json(filed, 201)).mockResolvedValueOnce(json(stored, 201));
+      const { user, onFiled } = renderForm();
+      await fillReport(user);
+      const file = jpeg();
+      await user.upload(photoInput(), file);
+      await submit(user);
+      await waitFor(() => expect(onFiled).toHaveBeenCalledTimes(1));
+      expect(fetchMock.mock.calls.map(([url]) => url)).toEqual(['/api/bundles/b1/strike-reports', '/api/strike-reports/r1/photos']);
+      const init = fetchMock.mock.calls[1][1]!;
+      expect(init.method).toBe('POST');
+      const form = init.body as FormData;
+      expect(form.get('photo')).toBe(file);
+      expect(onFiled.mock.calls[0][0]).toMatchObject({ id: 'r1' });
+    });
+
+    it('keeps the report when the upload fails, says why beside the photo field, and tries again', async () => {
+      fetchMock
+        .mockResolvedValueOnce(json(filed, 201))
+        .mockResolvedValueOnce(json({ error: { code: 'unsupported_image', message: 'The photo must be a JPEG, PNG or WebP image.', fields: { photo: 'not a JPEG, PNG or WebP image' } } }, 415));
+      const { user, onFiled } = renderForm();
+      await fillReport(user);
+      await user.upload(photoInput(), jpeg());
+      await submit(user);
+      await waitFor(() => expect(errorBeside(PHOTO)).toMatch(/Photo of the rooted cuttings not uploaded: not a JPEG, PNG or WebP image/));
+      expect(screen.getByText(/The report is saved/)).toBeTruthy();
+      expect(onFiled).not.toHaveBeenCalled();
+      expect(fetchMock).toHaveBeenCalledTimes(2);
+
+      fetchMock.mockResolvedValueOnce(json(stored, 201));
+      await user.upload(photoInput(), jpeg());
+      await user.click(screen.getByRole('button', { name: 'Try the photo again' }));
+      await waitFor(() => expect(onFiled).toHaveBeenCalledTimes(1));
+      // The report is not filed a second time: only the photo is sent again.
+      expect(fetchMock.mock.calls.map(([url]) => url)).toEqual(['/api/bundles/b1/strike-reports', '/api/strike-reports/r1/photos', '/api/strike-reports/r1/photos']);
+    });
   });
 });

@@ -84,8 +84,8 @@ export function BundleCard({ bundle, farms, today = todayIso(), onReportsChanged
           reporting ? (
             <div className="rounded-lg border-2 border-currant/30 bg-currant-light/40 p-4">
               <h4 className="mb-3 font-semibold">File a strike report</h4>
+              {/* Not keyed by the report count: the form stays mounted while the photo of a report it just filed uploads. */}
               <StrikeReportForm
-                key={bundle.reports.length}
                 bundle={bundle}
                 today={today}
                 onChanged={onReportsChanged}

@@ -1,14 +1,76 @@
 import { useState } from 'react';
-import type { StrikeReportView } from '../../../../shared/schemas/strike-reports';
+import type { StrikeReportPhotoView, StrikeReportView } from '../../../../shared/schemas/strike-reports';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Dialog } from '../../../components/ui/dialog';
 import { errorMessage } from '../../../lib/api-client';
 import { formatDay } from '../../../lib/format';
+import { useDeleteReportPhoto } from '../api/delete-report-photo';
 import { useDeleteStrikeReport } from '../api/delete-strike-report';
 import { rootedWords, treatmentWords } from '../lib/words';
 
-/** The reports filed on one bundle, each with "Delete" for one filed by mistake. */
+/** What a screen reader says for a report's photo: its caption, or which report it shows. */
+export const reportPhotoAlt = (photo: Pick<StrikeReportPhotoView, 'caption'>, report: Pick<StrikeReportView, 'assessedOn'>) =>
+  photo.caption || `Photo of the strike report of ${formatDay(report.assessedOn)}`;
+
+/** The photos of one report as thumbnails opening the full photo; the reporter may delete them. */
+function ReportPhotos({ report }: { report: StrikeReportView }) {
+  const remove = useDeleteReportPhoto();
+  const [removing, setRemoving] = useState<StrikeReportPhotoView | null>(null);
+  if (report.photos.length === 0) return null;
+  return (
+    <>
+      <ul className="mt-2 flex flex-wrap gap-3" aria-label={`Photos of the strike report of ${formatDay(report.assessedOn)}`}>
+        {report.photos.map((photo) => (
+          <li key={photo.id} className="flex w-28 flex-col gap-1">
+            <a href={photo.url} target="_blank" rel="noopener" className="block overflow-hidden rounded-lg border border-paper-edge bg-paper-deep">
+              <img src={photo.thumbUrl} alt={reportPhotoAlt(photo, report)} loading="lazy" className="aspect-square w-full object-cover" />
+            </a>
+            {report.mine ? (
+              <button
+                type="button"
+                className="min-h-touch self-start rounded px-2 text-sm font-medium text-rust underline underline-offset-2 hover:bg-rust-light"
+                onClick={() => setRemoving(photo)}
+                aria-label={`Delete the photo: ${reportPhotoAlt(photo, report)}`}
+              >
+                Delete photo
+              </button>
+            ) : null}
+          </li>
+        ))}
+      </ul>
+      <Dialog open={removing !== null} onClose={() => setRemoving(null)} title="Delete this photo?">
+        <div className="flex flex-col gap-4">
+          {removing ? <img src={removing.thumbUrl} alt="" className="max-h-48 self-start rounded-lg" /> : null}
+          <p className="text-ink-soft">The photo is removed from the strike report for good; the report stays.</p>
+          {remove.isError ? <Alert tone="danger">{errorMessage(remove.error)}</Alert> : null}
+          <div className="flex flex-wrap justify-end gap-2">
+            <Button variant="secondary" onClick={() => setRemoving(null)}>
+              Keep it
+            </Button>
+            <Button
+              variant="danger"
+              busy={remove.isPending}
+              onClick={async () => {
+                if (!removing) return;
+                try {
+                  await remove.mutateAsync(removing.id);
+                  setRemoving(null);
+                } catch {
+                  // Shown above.
+                }
+              }}
+            >
+              Delete photo
+            </Button>
+          </div>
+        </div>
+      </Dialog>
+    </>
+  );
+}
+
+/** The reports filed on one bundle, with their photos, each with "Delete" for one filed by mistake. */
 export function ReportList({ reports, bundleCode, onChanged }: { reports: StrikeReportView[]; bundleCode: string | null; onChanged?: () => void }) {
   const remove = useDeleteStrikeReport(onChanged);
   const [asking, setAsking] = useState<StrikeReportView | null>(null);
@@ -45,6 +107,7 @@ export function ReportList({ reports, bundleCode, onChanged }: { reports: Strike
                 {r.reporterName ? ` · reported by ${r.reporterName}` : ''}
               </p>
               {r.notes ? <p className="mt-1 whitespace-pre-wrap text-sm">{r.notes}</p> : null}
+              <ReportPhotos report={r} />
             </div>
             <Button variant="danger" size="sm" onClick={() => setAsking(r)} aria-label={`Delete the report of ${formatDay(r.assessedOn)}: ${rootedWords(r.rooted, r.stuck)}`}>
               Delete
@@ -57,7 +120,7 @@ export function ReportList({ reports, bundleCode, onChanged }: { reports: Strike
           <div className="flex flex-col gap-4">
             <p>
               {rootedWords(asking.rooted, asking.stuck)}, counted on {formatDay(asking.assessedOn)}. The strike rates go back to what they were without it. Delete it only
-              if it was filed by mistake; you can file a corrected one afterwards.
+              if it was filed by mistake; you can file a corrected one afterwards.{asking.photos.length ? ' Its photos are deleted with it.' : ''}
             </p>
             <div className="flex flex-wrap gap-2">
               <Button variant="danger" onClick={confirm} busy={remove.isPending}>

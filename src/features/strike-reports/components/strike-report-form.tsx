@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useMemo } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { LABELS, TREATMENTS, type Treatment } from '../../../../shared/domain';
 import type { z } from 'zod';
@@ -7,14 +7,29 @@ import type { StrikeReportCreate, StrikeReportView } from '../../../../shared/sc
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Field, namedError, Select, TextArea, TextInput } from '../../../components/ui/field';
-import { errorMessage } from '../../../lib/api-client';
+import { ApiError, errorMessage } from '../../../lib/api-client';
 import { applyServerFieldErrors } from '../../../lib/form-errors';
 import { useFileStrikeReport } from '../api/file-strike-report';
+import { MAX_PHOTO_BYTES, PHOTO_TYPES, useUploadReportPhoto } from '../api/upload-report-photo';
 import { REPORT_FIELDS, reportFormSchema, type ReportBundle } from '../lib/forms';
 import { numberOrUndefined, todayIso } from '../lib/words';
 import { HormoneCaution } from './report-cautions';
 
 export type ReportFormBundle = ReportBundle & { id: string; code: string | null; plannedTreatment: Treatment };
+
+const PHOTO_LABEL = 'Photo of the rooted cuttings';
+
+/** What is wrong with a chosen photo before anything is sent (the server checks the bytes again). */
+export function photoFileError(file: File): string | undefined {
+  if (!PHOTO_TYPES.split(',').includes(file.type)) return `${PHOTO_LABEL}: choose a JPEG, PNG or WebP image`;
+  if (file.size > MAX_PHOTO_BYTES) return `${PHOTO_LABEL}: larger than 10 MB; choose a smaller copy`;
+  return undefined;
+}
+
+function photoUploadError(error: unknown): string {
+  const field = error instanceof ApiError ? error.fields.photo : undefined;
+  return `${PHOTO_LABEL} not uploaded: ${field ?? errorMessage(error)}`;
+}
 
 /**
  * "File a strike report" for one collected bundle: cuttings stuck, how many rooted, when they
@@ -23,6 +38,11 @@ export type ReportFormBundle = ReportBundle & { id: string; code: string | null;
  */
 export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChanged }: { bundle: ReportFormBundle; today?: string; onFiled?: (report: StrikeReportView) => void; onChanged?: () => void }) {
   const file = useFileStrikeReport(onChanged);
+  const upload = useUploadReportPhoto();
+  const photoRef = useRef<HTMLInputElement>(null);
+  const [photoError, setPhotoError] = useState<string | undefined>();
+  /** A report filed here whose photo did not upload: the report stays, the photo can be tried again. */
+  const [photoPending, setPhotoPending] = useState<StrikeReportView | null>(null);
   const schema = useMemo(() => reportFormSchema(bundle, today), [bundle, today]);
   const defaults = {
     stuck: bundle.unreported > 0 ? bundle.unreported : undefined,
@@ -36,15 +56,96 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
   const treatment = useWatch({ control: form.control, name: 'treatment' });
   const ids = `report-${bundle.id}`;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  // Another report filed or removed meanwhile: start from the cuttings now left, unless typed over.
+  useEffect(() => {
+    if (!form.getFieldState('stuck').isDirty) form.resetField('stuck', { defaultValue: bundle.unreported > 0 ? bundle.unreported : undefined });
+  }, [bundle.unreported, form]);
+
+  const chosenPhoto = (): { file?: File; error?: string } => {
+    const chosen = photoRef.current?.files?.[0];
+    return chosen ? { file: chosen, error: photoFileError(chosen) } : {};
+  };
+
+  /** Uploads the photo of a filed report; true when it is stored. */
+  const sendPhoto = async (report: StrikeReportView, photo: File): Promise<boolean> => {
     try {
-      const report = await file.mutateAsync({ bundleId: bundle.id, input: values });
-      form.reset({ ...defaults, stuck: undefined });
-      onFiled?.(report);
+      await upload.mutateAsync({ reportId: report.id, file: photo });
+      return true;
+    } catch (error) {
+      setPhotoError(photoUploadError(error));
+      setPhotoPending(report);
+      return false;
+    }
+  };
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    const photo = chosenPhoto();
+    setPhotoError(photo.error);
+    // A photo that cannot be sent stops the report here, so it is not filed without it by surprise.
+    if (photo.error) return;
+    let report: StrikeReportView;
+    try {
+      report = await file.mutateAsync({ bundleId: bundle.id, input: values });
     } catch (error) {
       applyServerFieldErrors(error, form.setError, REPORT_FIELDS);
+      return;
     }
+    form.reset({ ...defaults, stuck: undefined });
+    if (photo.file && !(await sendPhoto(report, photo.file))) return;
+    onFiled?.(report);
   });
+
+  const retryPhoto = async () => {
+    if (!photoPending) return;
+    const photo = chosenPhoto();
+    if (!photo.file) {
+      setPhotoError(`${PHOTO_LABEL}: choose a photo to upload`);
+      return;
+    }
+    if (photo.error) {
+      setPhotoError(photo.error);
+      return;
+    }
+    setPhotoError(undefined);
+    if (await sendPhoto(photoPending, photo.file)) {
+      const report = photoPending;
+      setPhotoPending(null);
+      onFiled?.(report);
+    }
+  };
+
+  const photoField = (
+    <Field label={PHOTO_LABEL} optional hint="JPEG, PNG or WebP, up to 10 MB. Only you and the coordinators see it." error={photoError}>
+      <TextInput ref={photoRef} type="file" accept={PHOTO_TYPES} className="py-2" onChange={() => setPhotoError(undefined)} />
+    </Field>
+  );
+
+  if (photoPending) {
+    return (
+      <div className="flex flex-col gap-4" role="group" aria-label={`Photo for the strike report on bundle ${bundle.code ?? ''}`.trim()}>
+        <Alert tone="warning" title="Strike report filed; the photo is not uploaded yet">
+          The report is saved. Try the photo again, choose another one, or go on without it.
+        </Alert>
+        {photoField}
+        <div className="flex flex-wrap gap-2">
+          <Button onClick={retryPhoto} busy={upload.isPending}>
+            Try the photo again
+          </Button>
+          <Button
+            variant="secondary"
+            onClick={() => {
+              const report = photoPending;
+              setPhotoPending(null);
+              setPhotoError(undefined);
+              onFiled?.(report);
+            }}
+          >
+            Go on without the photo
+          </Button>
+        </div>
+      </div>
+    );
+  }
 
   return (
       <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4" aria-label={`Strike report on bundle ${bundle.code ?? ''}`.trim()}>
@@ -79,8 +180,9 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
           </Field>
         </div>
         {treatment === 'hormone' || treatment === 'both' ? <HormoneCaution id={`${ids}-hormone`} /> : null}
+        {photoField}
         <div>
-          <Button type="submit" busy={file.isPending}>
+          <Button type="submit" busy={file.isPending || upload.isPending}>
             File the strike report
           </Button>
         </div>
