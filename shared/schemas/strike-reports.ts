@@ -12,6 +12,7 @@ import {
   type Treatment,
 } from '../domain.js';
 import { uuidParam } from './common.js';
+import type { PhotoView } from './register.js';
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -73,17 +74,11 @@ export type StrikeRatesQuery = z.input<typeof strikeRatesQuerySchema>;
 /** A strike report has at most this many photos of its rooted cuttings. */
 export const MAX_REPORT_PHOTOS = 3;
 
-/** A photo of a report's rooted cuttings; the files are served as plant photos are. */
-export type StrikeReportPhotoView = {
-  id: string;
-  /** /api/photos/:id/image and /api/photos/:id/thumb: the reporter and coordinators only. */
-  url: string;
-  thumbUrl: string;
-  caption: string | null;
-  width: number;
-  height: number;
-  createdAt: string;
-};
+/**
+ * A photo of a report's rooted cuttings, as a plant photo but with no position kept; the
+ * files (/api/photos/:id/image and /thumb) are for the reporter and coordinators only.
+ */
+export type StrikeReportPhotoView = Omit<PhotoView, 'gps' | 'findingId'>;
 
 export type StrikeReportView = {
   id: string;

@@ -217,15 +217,8 @@ type ReportOfPhotos = { id: string; reporterId: string | null };
 const seesReportPhotos = (a: Actor, report: ReportOfPhotos) => report.reporterId === a.id || isCoordinator(a);
 
 export function reportPhotoView(p: PhotoRow): StrikeReportPhotoView {
-  return {
-    id: p.id,
-    url: `/api/photos/${p.id}/image`,
-    thumbUrl: `/api/photos/${p.id}/thumb`,
-    caption: p.caption,
-    width: p.width,
-    height: p.height,
-    createdAt: p.createdAt.toISOString(),
-  };
+  const { gps: _noPosition, findingId: _noFinding, ...view } = photoView(p);
+  return view;
 }
 
 /** Only the person who filed the report adds photos to it (others learn nothing of it), up to three. */

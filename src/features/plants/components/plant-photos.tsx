@@ -2,7 +2,7 @@ import { useId, useRef, useState, type FormEvent } from 'react';
 import type { PhotoView } from '../../../../shared/schemas/register';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
-import { Dialog } from '../../../components/ui/dialog';
+import { DeletePhotoDialog } from '../../../components/ui/delete-photo-dialog';
 import { Field, TextInput } from '../../../components/ui/field';
 import { ApiError, errorMessage } from '../../../lib/api-client';
 import { formatDay } from '../../../lib/format';
@@ -144,33 +144,14 @@ export function PlantPhotos({
         </form>
       ) : null}
 
-      <Dialog open={removing !== null} onClose={() => setRemoving(null)} title="Delete this photo?">
-        <div className="flex flex-col gap-4">
-          {removing ? <img src={removing.thumbUrl} alt="" className="max-h-48 self-start rounded-lg" /> : null}
-          <p className="text-ink-soft">The photo is removed from the plant's record for good.</p>
-          {remove.isError ? <Alert tone="danger">{errorMessage(remove.error)}</Alert> : null}
-          <div className="flex flex-wrap justify-end gap-2">
-            <Button variant="secondary" onClick={() => setRemoving(null)}>
-              Keep it
-            </Button>
-            <Button
-              variant="danger"
-              busy={remove.isPending}
-              onClick={async () => {
-                if (!removing) return;
-                try {
-                  await remove.mutateAsync({ photoId: removing.id, plantId });
-                  setRemoving(null);
-                } catch {
-                  // Shown above.
-                }
-              }}
-            >
-              Delete photo
-            </Button>
-          </div>
-        </div>
-      </Dialog>
+      <DeletePhotoDialog
+        photo={removing}
+        consequence="The photo is removed from the plant's record for good."
+        busy={remove.isPending}
+        error={remove.isError ? errorMessage(remove.error) : null}
+        onClose={() => setRemoving(null)}
+        onDelete={(photoId) => remove.mutateAsync({ photoId, plantId })}
+      />
     </div>
   );
 }

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import type { StrikeReportPhotoView, StrikeReportView } from '../../../../shared/schemas/strike-reports';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { DeletePhotoDialog } from '../../../components/ui/delete-photo-dialog';
 import { Dialog } from '../../../components/ui/dialog';
 import { errorMessage } from '../../../lib/api-client';
 import { formatDay } from '../../../lib/format';
@@ -39,33 +40,14 @@ function ReportPhotos({ report }: { report: StrikeReportView }) {
           </li>
         ))}
       </ul>
-      <Dialog open={removing !== null} onClose={() => setRemoving(null)} title="Delete this photo?">
-        <div className="flex flex-col gap-4">
-          {removing ? <img src={removing.thumbUrl} alt="" className="max-h-48 self-start rounded-lg" /> : null}
-          <p className="text-ink-soft">The photo is removed from the strike report for good; the report stays.</p>
-          {remove.isError ? <Alert tone="danger">{errorMessage(remove.error)}</Alert> : null}
-          <div className="flex flex-wrap justify-end gap-2">
-            <Button variant="secondary" onClick={() => setRemoving(null)}>
-              Keep it
-            </Button>
-            <Button
-              variant="danger"
-              busy={remove.isPending}
-              onClick={async () => {
-                if (!removing) return;
-                try {
-                  await remove.mutateAsync(removing.id);
-                  setRemoving(null);
-                } catch {
-                  // Shown above.
-                }
-              }}
-            >
-              Delete photo
-            </Button>
-          </div>
-        </div>
-      </Dialog>
+      <DeletePhotoDialog
+        photo={removing}
+        consequence="The photo is removed from the strike report for good; the report stays."
+        busy={remove.isPending}
+        error={remove.isError ? errorMessage(remove.error) : null}
+        onClose={() => setRemoving(null)}
+        onDelete={(photoId) => remove.mutateAsync(photoId)}
+      />
     </>
   );
 }
