@@ -183,6 +183,8 @@ describe('StrikeReportForm', () => {
       const form = init.body as FormData;
       expect(form.get('photo')).toBe(file);
       expect(onFiled.mock.calls[0][0]).toMatchObject({ id: 'r1' });
+      // The form stays for the next report, without this one's photo.
+      expect(photoInput().files?.length ?? 0).toBe(0);
     });
 
     it('keeps the report when the upload fails, says why beside the photo field, and tries again', async () => {
@@ -204,6 +206,22 @@ describe('StrikeReportForm', () => {
       await waitFor(() => expect(onFiled).toHaveBeenCalledTimes(1));
       // The report is not filed a second time: only the photo is sent again.
       expect(fetchMock.mock.calls.map(([url]) => url)).toEqual(['/api/bundles/b1/strike-reports', '/api/strike-reports/r1/photos', '/api/strike-reports/r1/photos']);
+    });
+
+    it('sends the same photo again when none other is chosen (a dropped connection), and empties the field after', async () => {
+      fetchMock.mockResolvedValueOnce(json(filed, 201)).mockRejectedValueOnce(new TypeError('Failed to fetch'));
+      const { user, onFiled } = renderForm();
+      await fillReport(user);
+      const file = jpeg();
+      await user.upload(photoInput(), file);
+      await submit(user);
+      await waitFor(() => expect(screen.getByText(/The report is saved/)).toBeTruthy());
+      fetchMock.mockResolvedValueOnce(json(stored, 201));
+      await user.click(screen.getByRole('button', { name: 'Try the photo again' }));
+      await waitFor(() => expect(onFiled).toHaveBeenCalledTimes(1));
+      expect((fetchMock.mock.calls[2][1]!.body as FormData).get('photo')).toBe(file);
+      // Back on the form, the next report starts without this photo.
+      expect(photoInput().files?.length ?? 0).toBe(0);
     });
   });
 });

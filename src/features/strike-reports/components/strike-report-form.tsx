@@ -42,7 +42,7 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
   const photoRef = useRef<HTMLInputElement>(null);
   const [photoError, setPhotoError] = useState<string | undefined>();
   /** A report filed here whose photo did not upload: the report stays, the photo can be tried again. */
-  const [photoPending, setPhotoPending] = useState<StrikeReportView | null>(null);
+  const [photoPending, setPhotoPending] = useState<{ report: StrikeReportView; file: File } | null>(null);
   const schema = useMemo(() => reportFormSchema(bundle, today), [bundle, today]);
   const defaults = {
     stuck: bundle.unreported > 0 ? bundle.unreported : undefined,
@@ -61,6 +61,11 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
     if (!form.getFieldState('stuck').isDirty) form.resetField('stuck', { defaultValue: bundle.unreported > 0 ? bundle.unreported : undefined });
   }, [bundle.unreported, form]);
 
+  /** Empties the file input, so that the next report does not carry this one's photo. */
+  const clearPhoto = () => {
+    if (photoRef.current) photoRef.current.value = '';
+  };
+
   const chosenPhoto = (): { file?: File; error?: string } => {
     const chosen = photoRef.current?.files?.[0];
     return chosen ? { file: chosen, error: photoFileError(chosen) } : {};
@@ -73,7 +78,7 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
       return true;
     } catch (error) {
       setPhotoError(photoUploadError(error));
-      setPhotoPending(report);
+      setPhotoPending({ report, file: photo });
       return false;
     }
   };
@@ -92,24 +97,23 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
     }
     form.reset({ ...defaults, stuck: undefined });
     if (photo.file && !(await sendPhoto(report, photo.file))) return;
+    clearPhoto();
     onFiled?.(report);
   });
 
   const retryPhoto = async () => {
     if (!photoPending) return;
+    // Another photo chosen here replaces the one that failed; otherwise that one is sent again.
     const photo = chosenPhoto();
-    if (!photo.file) {
-      setPhotoError(`${PHOTO_LABEL}: choose a photo to upload`);
-      return;
-    }
     if (photo.error) {
       setPhotoError(photo.error);
       return;
     }
     setPhotoError(undefined);
-    if (await sendPhoto(photoPending, photo.file)) {
-      const report = photoPending;
+    const { report } = photoPending;
+    if (await sendPhoto(report, photo.file ?? photoPending.file)) {
       setPhotoPending(null);
+      clearPhoto();
       onFiled?.(report);
     }
   };
@@ -124,7 +128,7 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
     return (
       <div className="flex flex-col gap-4" role="group" aria-label={`Photo for the strike report on bundle ${bundle.code ?? ''}`.trim()}>
         <Alert tone="warning" title="Strike report filed; the photo is not uploaded yet">
-          The report is saved. Try the photo again, choose another one, or go on without it.
+          The report is saved. Try the same photo again, choose another one, or go on without it.
         </Alert>
         {photoField}
         <div className="flex flex-wrap gap-2">
@@ -134,9 +138,10 @@ export function StrikeReportForm({ bundle, today = todayIso(), onFiled, onChange
           <Button
             variant="secondary"
             onClick={() => {
-              const report = photoPending;
+              const { report } = photoPending;
               setPhotoPending(null);
               setPhotoError(undefined);
+              clearPhoto();
               onFiled?.(report);
             }}
           >
