@@ -16,7 +16,7 @@
 import type { AllocInput, AllocResult } from './allocation-model.js';
 import { fairFloors } from './allocation-model.js';
 import { prepare } from './allocation-arcs.js';
-import { highs, runStage, type StageModel } from './allocation-highs.js';
+import { compressRows, highs, runStage, type StageModel } from './allocation-highs.js';
 import { context } from './allocation-stages.js';
 
 export type DecompositionResult = {
@@ -35,22 +35,6 @@ export type DecompositionResult = {
 };
 
 type Plan = { grower: number; cost: number; volume: number; lots: Map<number, number> };
-
-/** CSR rows from (row, column, value) entries. */
-function compress(numRows: number, entries: [number, number, number][]) {
-  const rowStarts = new Int32Array(numRows + 1);
-  for (const [r] of entries) rowStarts[r + 1]++;
-  for (let r = 0; r < numRows; r++) rowStarts[r + 1] += rowStarts[r];
-  const fill = rowStarts.slice(0, numRows);
-  const rowIndex = new Int32Array(entries.length);
-  const rowValue = new Float64Array(entries.length);
-  for (const [r, j, v] of entries) {
-    const at = fill[r]++;
-    rowIndex[at] = j;
-    rowValue[at] = v;
-  }
-  return { rowStarts, rowIndex, rowValue };
-}
 
 /**
  * The bound for the travel stage of `result`, which must come from `solveAllocation(input)`
@@ -149,7 +133,7 @@ export async function decompositionBound(
       integrality: new Int32Array(plans.length),
       rowLower: Float64Array.from(rowLower),
       rowUpper: Float64Array.from(rowUpper),
-      ...compress(rowLower.length, entries),
+      ...compressRows(rowLower.length, entries.map((e) => e[0]), entries.map((e) => e[1]), entries.map((e) => e[2])),
     };
   };
 
@@ -202,7 +186,7 @@ export async function decompositionBound(
       integrality: new Int32Array(cost.length).fill(1),
       rowLower: Float64Array.from(rowLower),
       rowUpper: Float64Array.from(rowUpper),
-      ...compress(rowLower.length, entries),
+      ...compressRows(rowLower.length, entries.map((e) => e[0]), entries.map((e) => e[1]), entries.map((e) => e[2])),
     };
     const run = runStage(h, model, { timeLimit: 60, relGap: 1e-9, absGap: 1e-9 });
     if (!run.feasible) throw new Error(`Grower ${p.growerIds[g]} has no plan that meets its floors (${run.status})`);

@@ -18,6 +18,22 @@ export type StageModel = {
   rowValue: Float64Array;
 };
 
+/** Compressed sparse rows from entries given as parallel arrays (row, column, value). */
+export function compressRows(numRows: number, eRow: ArrayLike<number>, eCol: ArrayLike<number>, eVal: ArrayLike<number>) {
+  const rowStarts = new Int32Array(numRows + 1);
+  for (let e = 0; e < eRow.length; e++) rowStarts[eRow[e] + 1]++;
+  for (let r = 0; r < numRows; r++) rowStarts[r + 1] += rowStarts[r];
+  const fill = rowStarts.slice(0, numRows);
+  const rowIndex = new Int32Array(eRow.length);
+  const rowValue = new Float64Array(eRow.length);
+  for (let e = 0; e < eRow.length; e++) {
+    const at = fill[eRow[e]]++;
+    rowIndex[at] = eCol[e];
+    rowValue[at] = eVal[e];
+  }
+  return { rowStarts, rowIndex, rowValue };
+}
+
 export type StageRun = {
   status: string;
   /** A solution satisfying every constraint was found (not necessarily proven best). */

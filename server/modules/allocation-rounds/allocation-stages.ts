@@ -4,7 +4,7 @@
 // the LP optimum over all arcs, a bound that holds for the whole integer program. Small
 // problems start from all arcs, so there the integer stages are exact outright.
 import type { Prepared } from './allocation-arcs.js';
-import type { StageModel } from './allocation-highs.js';
+import { compressRows, type StageModel } from './allocation-highs.js';
 
 /** In the travel tie-break a substitute cutting counts as this many km farther. */
 export const SUBSTITUTE_KM = 1000;
@@ -350,19 +350,7 @@ export function buildMaster(c: Ctx, arcs: number[], spec: StageSpec): Master {
   if (spec.kind === 'volume') offset = -c.lockedTotal;
   if (spec.kind === 'travel') for (let gf = 0; gf < p.gfGrower.length; gf++) if (p.gfLocked[gf] > 0) offset += c.visitCost[gf];
 
-  // Coordinates to compressed rows.
-  const numRows = rLo.length;
-  const rowStarts = new Int32Array(numRows + 1);
-  for (const r of eRow) rowStarts[r + 1]++;
-  for (let r = 0; r < numRows; r++) rowStarts[r + 1] += rowStarts[r];
-  const fill = rowStarts.slice(0, numRows);
-  const rowIndex = new Int32Array(eRow.length);
-  const rowValue = new Float64Array(eRow.length);
-  for (let e = 0; e < eRow.length; e++) {
-    const at = fill[eRow[e]]++;
-    rowIndex[at] = eCol[e];
-    rowValue[at] = eVal[e];
-  }
+  const { rowStarts, rowIndex, rowValue } = compressRows(rLo.length, eRow, eCol, eVal);
   return {
     model: {
       sense: 'min',

@@ -214,7 +214,7 @@ export async function removePhotoFiles(dir: string, names: readonly string[]): P
 type ReportOfPhotos = { id: string; reporterId: string | null };
 
 /** The reporter and coordinators see a report's photos (a grower's own bench, not the register). */
-const seesReportPhotos = (a: Actor, report: ReportOfPhotos) => report.reporterId === a.id || isCoordinator(a);
+export const seesReportPhotos = (a: Actor, report: Pick<ReportOfPhotos, 'reporterId'>) => report.reporterId === a.id || isCoordinator(a);
 
 export function reportPhotoView(p: PhotoRow): StrikeReportPhotoView {
   const { gps: _noPosition, findingId: _noFinding, ...view } = photoView(p);
@@ -243,8 +243,9 @@ export async function addReportPhoto(
   buffer: Buffer,
   fields: { caption: string | null },
 ): Promise<{ photo: StrikeReportPhotoView }> {
-  await assertMayAddReportPhoto(deps.db, a, reportId);
-  // No position is kept: it would say where the grower keeps their cuttings, and nothing here uses it.
+  // The router has checked before reading the upload; the transaction below checks again on
+  // the locked report. No position is kept: it would say where the grower keeps their
+  // cuttings, and nothing here uses it.
   const { row } = await storePhoto(
     deps,
     buffer,

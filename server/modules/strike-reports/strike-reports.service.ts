@@ -32,7 +32,7 @@ import { writeAudit } from '../audit/audit.repo.js';
 import { insertPlant, nextPlantNumber } from '../mother-plants/mother-plants.repo.js';
 import { isCoordinator } from '../mother-plants/plant-access.js';
 import { photosOfReports } from '../photos/photos.repo.js';
-import { removePhotoFiles, reportPhotoView } from '../photos/photos.service.js';
+import { removePhotoFiles, reportPhotoView, seesReportPhotos } from '../photos/photos.service.js';
 import { localDate, reportDueOn } from '../reminders/report-due.js';
 import {
   bundleReportSums,
@@ -189,7 +189,7 @@ export async function myBundles(db: DbOrTx, a: Actor): Promise<MyBundles> {
   // Photos of reports the caller filed (a coordinator sees all): the files answer them alone.
   const photoRows = await photosOfReports(
     db,
-    reports.filter((x) => x.reporterId === a.id || isCoordinator(a)).map((x) => x.id),
+    reports.filter((x) => seesReportPhotos(a, x)).map((x) => x.id),
   );
   const raised = await plantsFromBundles(db, ids);
   const farmNames = new Map(
